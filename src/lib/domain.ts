@@ -88,3 +88,41 @@ export const ROLE_LABELS: Record<Role, string> = {
   auditor: 'Field auditor',
   kit_custodian: 'Kit custodian',
 };
+
+/**
+ * Building use types as installation staff know them. Each maps to a published building-activity
+ * category for peer comparison (see src/lib/benchmark).
+ */
+export const USE_TYPES = [
+  'office',
+  'lodging',
+  'dining',
+  'warehouse',
+  'retail',
+  'clinic',
+  'training',
+  'fitness',
+  'laboratory',
+  'vehicle_maintenance',
+  'religious',
+  'data_center',
+  'other',
+] as const;
+export const useTypeSchema = z.enum(USE_TYPES);
+export type UseType = z.infer<typeof useTypeSchema>;
+
+export const USE_TYPE_LABELS: Record<UseType, string> = {
+  office: 'Office / administration',
+  lodging: 'Lodging / dormitory',
+  dining: 'Dining facility',
+  warehouse: 'Warehouse / storage',
+  retail: 'Shop / retail',
+  clinic: 'Clinic / outpatient health',
+  training: 'Training / classroom',
+  fitness: 'Fitness / recreation',
+  laboratory: 'Laboratory',
+  vehicle_maintenance: 'Vehicle maintenance',
+  religious: 'Chapel / worship',
+  data_center: 'Data center',
+  other: 'Other',
+};
