@@ -126,3 +126,17 @@ export const USE_TYPE_LABELS: Record<UseType, string> = {
   data_center: 'Data center',
   other: 'Other',
 };
+
+/** The units a bill for each commodity may be stated in (demand kW is a separate bill field). */
+export const COMMODITY_UNITS: Record<Commodity, readonly Unit[]> = {
+  electricity: ['kWh', 'MWh'],
+  natural_gas: ['therm', 'Dth', 'MMBtu', 'cf', 'ccf', 'Mcf'],
+  fuel_oil_2: ['gal'],
+  fuel_oil_6: ['gal'],
+  propane: ['gal'],
+  kerosene: ['gal'],
+  diesel: ['gal'],
+  district_steam: ['lb', 'Mlb'],
+  chilled_water: ['ton_h'],
+  water: ['gal', 'kgal', 'ccf', 'm3'],
+};
