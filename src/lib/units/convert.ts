@@ -76,11 +76,7 @@ function energyPerUnit(commodity: Commodity, unit: Unit, meter: MeterHeatContent
       return unit === 'cf' ? perCf : perCf * (unit === 'ccf' ? CF_PER_CCF : CF_PER_MCF);
     }
     case 'gal':
-    case 'kgal': {
-      if (!isLiquidFuel(commodity)) return 'unit-not-valid-for-commodity';
-      const perGal = KBTU_PER_GALLON[commodity];
-      return unit === 'gal' ? perGal : perGal * GAL_PER_KGAL;
-    }
+      return isLiquidFuel(commodity) ? KBTU_PER_GALLON[commodity] : 'unit-not-valid-for-commodity';
     case 'lb':
     case 'Mlb': {
       if (meter.steamBtuPerLb === undefined) return 'steam-heat-content-missing';

@@ -4,7 +4,7 @@
  * punctuation and a plural "s"; anything not recognised is a typed failure, never a guess.
  */
 import type { Commodity, Unit } from '../domain';
-import { isDemandUnit, isQuantityUnitFor } from './commodity-units';
+import { isDemandUnitFor, isQuantityUnitFor } from './commodity-units';
 
 export type ParseUnitFailure = 'empty-unit' | 'unknown-unit' | 'unit-not-valid-for-commodity';
 export type ParseUnitResult = { ok: true; unit: Unit } | { ok: false; reason: ParseUnitFailure };
@@ -65,8 +65,6 @@ export function parseUnit(raw: string): ParseUnitResult {
 export function parseUnitFor(raw: string, commodity: Commodity, options: { demand?: boolean } = {}): ParseUnitResult {
   const parsed = parseUnit(raw);
   if (!parsed.ok) return parsed;
-  const valid = options.demand
-    ? isDemandUnit(parsed.unit) && commodity === 'electricity'
-    : isQuantityUnitFor(commodity, parsed.unit);
+  const valid = options.demand ? isDemandUnitFor(commodity, parsed.unit) : isQuantityUnitFor(commodity, parsed.unit);
   return valid ? parsed : { ok: false, reason: 'unit-not-valid-for-commodity' };
 }

@@ -56,8 +56,6 @@ describe('site energy, quick checks', () => {
     expectRel(kbtu(42, 'fuel_oil_6', 'gal'), 6_287);
     // Source: U.S. EIA, MER Appendix A Table A1: kerosene 5.670 MMBtu per 42-gal barrel
     expectRel(kbtu(42, 'kerosene', 'gal'), 5_670);
-    // Source: definition, 1 kgal = 1,000 gal
-    expectRel(kbtu(1, 'fuel_oil_2', 'kgal'), 138_500);
   });
 
   it('converts chilled water and steam', () => {
@@ -92,13 +90,12 @@ describe('typed failures', () => {
   });
   it('requires a per-meter Btu/lb for steam by mass', () => {
     expect(toSiteKbtu(1, 'district_steam', 'Mlb')).toEqual({ ok: false, reason: 'steam-heat-content-missing' });
-    // energy-billed steam needs no heat content
-    expect(toSiteKbtu(1, 'district_steam', 'MMBtu')).toEqual({ ok: true, measure: 'kBtu', value: 1000 });
   });
   it('rejects units that do not fit the commodity', () => {
     expect(conversionFactor('natural_gas', 'kWh')).toEqual({ ok: false, reason: 'unit-not-valid-for-commodity' });
     expect(conversionFactor('water', 'therm')).toEqual({ ok: false, reason: 'unit-not-valid-for-commodity' });
     expect(conversionFactor('electricity', 'gal')).toEqual({ ok: false, reason: 'unit-not-valid-for-commodity' });
+    expect(conversionFactor('propane', 'kgal')).toEqual({ ok: false, reason: 'unit-not-valid-for-commodity' });
   });
   it('rejects bad heat contents and quantities', () => {
     expect(conversionFactor('natural_gas', 'ccf', { gasKbtuPerCf: 0 })).toEqual({ ok: false, reason: 'invalid-heat-content' });

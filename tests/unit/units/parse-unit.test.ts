@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { UNITS, type Unit } from '../../../src/lib/domain';
-import { isQuantityUnitFor, parseUnit, parseUnitFor, QUANTITY_UNITS } from '../../../src/lib/units';
+import { COMMODITY_UNITS, UNITS, type Unit } from '../../../src/lib/domain';
+import { isQuantityUnitFor, parseUnit, parseUnitFor } from '../../../src/lib/units';
 
 // Spellings seen in US utility exports and bills (common practice).
 const MESSY: [string, Unit][] = [
@@ -68,7 +68,7 @@ describe('units per commodity', () => {
   });
 
   it('never lists demand as a quantity unit, and lists each unit the brief names', () => {
-    for (const units of Object.values(QUANTITY_UNITS)) expect(units).not.toContain('kW');
+    for (const units of Object.values(COMMODITY_UNITS)) expect(units).not.toContain('kW');
     expect(isQuantityUnitFor('district_steam', 'Mlb')).toBe(true);
     expect(isQuantityUnitFor('chilled_water', 'ton_h')).toBe(true);
     expect(isQuantityUnitFor('water', 'm3')).toBe(true);
