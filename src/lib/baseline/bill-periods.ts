@@ -1,0 +1,152 @@
+/**
+ * Bills of one series to model periods: use per day, degree days at every base, temperature
+ * coverage.
+ *
+ * - A bill covers [start, end], both dates inclusive; when a bill starts on the previous bill's
+ *   end date (a shared read date) the shared day belongs to the earlier bill (methods.md §2).
+ * - Use per day `UPD = quantity / days` (CalTRACK 2.0 §3.3.3 [confirmed]).
+ * - A period needs a temperature on ≥ 90 % of its days (CalTRACK 2.0 §2.2.3.2 [confirmed]);
+ *   periods below are dropped and reported, never silently.
+ * - Bills are sorted by start date, so the order in which they arrive changes nothing.
+ */
+import { BASE_COUNT } from './grid';
+import type { DailyTemperatures } from './daily-temperatures';
+import { fillPeriodDegreeDays, type PeriodTemperatureSummary } from './period-degree-days';
+
+/** Bills of one series as parallel arrays of day numbers (inclusive) and quantities. */
+export interface BillArrays {
+  readonly startDay: ArrayLike<number>;
+  readonly endDay: ArrayLike<number>;
+  readonly quantity: ArrayLike<number>;
+}
+
+export type DropReason = 'invalid-dates' | 'invalid-quantity' | 'no-days-left' | 'insufficient-temperature';
+
+/** A bill left out of the fit, with why. `index` is its position in the caller's input. */
+export interface DroppedPeriod {
+  index: number;
+  startDay: number;
+  endDay: number;
+  reason: DropReason;
+  /** Share of days with a temperature (for `insufficient-temperature`). */
+  temperatureCoverage: number | null;
+}
+
+/**
+ * Model periods of one series in time order, in reusable typed arrays (capacity grows on demand).
+ * Degree days are period-major: `hdd[i * BASE_COUNT + k]` is HDD_p of period i at base 30 + k °F.
+ */
+export class PeriodTable {
+  n = 0;
+  capacity = 0;
+  sourceIndex = new Int32Array(0);
+  startDay = new Int32Array(0);
+  endDay = new Int32Array(0);
+  days = new Float64Array(0);
+  quantity = new Float64Array(0);
+  usePerDay = new Float64Array(0);
+  meanTempF = new Float64Array(0);
+  minTempF = new Float64Array(0);
+  maxTempF = new Float64Array(0);
+  hdd = new Float64Array(0);
+  cdd = new Float64Array(0);
+  /** Periods whose start was moved one day later by the shared-read-date rule. */
+  sharedReadDates = 0;
+  /** Pairs of consecutive bills that overlap by more than a shared read date (kept, reported). */
+  overlaps = 0;
+  scratch = new Float64Array(64);
+  order = new Int32Array(0);
+  readonly summary: PeriodTemperatureSummary = { count: 0, meanF: 0, minF: 0, maxF: 0 };
+
+  ensureCapacity(n: number): void {
+    if (n <= this.capacity) return;
+    const cap = Math.max(n, this.capacity * 2, 16);
+    this.capacity = cap;
+    this.sourceIndex = new Int32Array(cap);
+    this.startDay = new Int32Array(cap);
+    this.endDay = new Int32Array(cap);
+    this.days = new Float64Array(cap);
+    this.quantity = new Float64Array(cap);
+    this.usePerDay = new Float64Array(cap);
+    this.meanTempF = new Float64Array(cap);
+    this.minTempF = new Float64Array(cap);
+    this.maxTempF = new Float64Array(cap);
+    this.hdd = new Float64Array(cap * BASE_COUNT);
+    this.cdd = new Float64Array(cap * BASE_COUNT);
+    this.order = new Int32Array(cap);
+  }
+}
+
+/** Sort bill indices by start day, then end day, then input position (stable, deterministic). */
+function sortBillOrder(bills: BillArrays, order: Int32Array, count: number): void {
+  for (let i = 0; i < count; i++) order[i] = i;
+  const view = order.subarray(0, count);
+  view.sort((a, b) => bills.startDay[a]! - bills.startDay[b]! || bills.endDay[a]! - bills.endDay[b]! || a - b);
+}
+
+/**
+ * Fill `table` with the usable periods of `bills` and return the bills left out.
+ * @param minCoverage share of a period's days that must have a temperature (default 0.9)
+ */
+export function buildPeriodTable(
+  bills: BillArrays,
+  temps: DailyTemperatures,
+  table: PeriodTable,
+  minCoverage = 0.9,
+): DroppedPeriod[] {
+  const count = bills.startDay.length;
+  table.ensureCapacity(count);
+  table.n = 0;
+  table.sharedReadDates = 0;
+  table.overlaps = 0;
+  const dropped: DroppedPeriod[] = [];
+  const order = table.order;
+  sortBillOrder(bills, order, count);
+  let prevEnd = Number.NEGATIVE_INFINITY;
+  for (let r = 0; r < count; r++) {
+    const idx = order[r]!;
+    const start0 = bills.startDay[idx]!;
+    const end = bills.endDay[idx]!;
+    const q = bills.quantity[idx]!;
+    if (!Number.isInteger(start0) || !Number.isInteger(end) || end < start0) {
+      dropped.push({ index: idx, startDay: start0, endDay: end, reason: 'invalid-dates', temperatureCoverage: null });
+      continue;
+    }
+    let start = start0;
+    if (start === prevEnd) {
+      start++; // shared read date: the day belongs to the earlier bill
+      table.sharedReadDates++;
+    } else if (start < prevEnd) {
+      table.overlaps++;
+    }
+    prevEnd = Math.max(prevEnd, end);
+    if (!Number.isFinite(q)) {
+      dropped.push({ index: idx, startDay: start0, endDay: end, reason: 'invalid-quantity', temperatureCoverage: null });
+      continue;
+    }
+    const days = end - start + 1;
+    if (days < 1) {
+      dropped.push({ index: idx, startDay: start0, endDay: end, reason: 'no-days-left', temperatureCoverage: null });
+      continue;
+    }
+    if (table.scratch.length < days) table.scratch = new Float64Array(Math.max(days, table.scratch.length * 2));
+    const i = table.n;
+    const s = fillPeriodDegreeDays(temps, start, end, table.hdd, table.cdd, i * BASE_COUNT, table.scratch, table.summary);
+    const coverage = s.count / days;
+    if (coverage < minCoverage || s.count === 0) {
+      dropped.push({ index: idx, startDay: start0, endDay: end, reason: 'insufficient-temperature', temperatureCoverage: coverage });
+      continue;
+    }
+    table.sourceIndex[i] = idx;
+    table.startDay[i] = start;
+    table.endDay[i] = end;
+    table.days[i] = days;
+    table.quantity[i] = q;
+    table.usePerDay[i] = q / days;
+    table.meanTempF[i] = s.meanF;
+    table.minTempF[i] = s.minF;
+    table.maxTempF[i] = s.maxF;
+    table.n = i + 1;
+  }
+  return dropped;
+}

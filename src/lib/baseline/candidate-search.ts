@@ -1,0 +1,312 @@
+/**
+ * Balance-point search: the best qualified candidate of every shape on the 1 °F grid.
+ *
+ * With the balance points fixed every shape is linear, so each candidate is a closed-form
+ * weighted least-squares problem (CalTRACK 2.0 §3.4.1 [confirmed]: weight = days). Sums are
+ * accumulated once per series:
+ * - centred per-base sums S_hh(b), S_hy(b) (and cooling alike) in two passes, so each one-slope
+ *   candidate costs a handful of flops;
+ * - for the two-slope shape the cross sums S_hc(bH, bC) = Σ w·H·C − W·m_H·m_C. The raw product
+ *   H_p(bH)·C_p(bC) of a period is non-zero only when the period has a day colder than bH and a
+ *   day warmer than bC, so Σ w·H·C is accumulated per period over that triangle only (shoulder
+ *   months), and each of the ~1,900 (bH ≤ bC) pairs is then a 2×2 solve with early rejection
+ *   on the sign of the slopes before any division.
+ *
+ * Qualification (CalTRACK 2.0 §3.4.3.2 [confirmed]): degree-day slopes > 0 and intercept ≥ 0.
+ * Within a shape, the best candidate has the smallest weighted residual sum of squares (the same
+ * ordering as adjusted R², since c is fixed within a shape); ties go to the lower balance points
+ * and, for the two-slope shape, to τH = τC (fewer parameters).
+ */
+import { BASE_COUNT } from './grid';
+import type { PeriodTable } from './bill-periods';
+
+/** Why a shape has no candidate. */
+export type CandidateFailure =
+  | 'not-requested'
+  | 'too-few-periods'
+  | 'no-degree-day-variation'
+  | 'constant-temperature'
+  | 'no-qualified-candidate';
+
+/** Best candidate of one shape; indices are grid positions (base = 30 + k °F), −1 when not used. */
+export interface ShapeBest {
+  found: boolean;
+  heatingK: number;
+  coolingK: number;
+  /** Σ w (y − ŷ)² of the candidate. */
+  ssResidual: number;
+  /** Candidates fitted (non-degenerate) and those that qualified. */
+  evaluated: number;
+  qualified: number;
+  failure: CandidateFailure | null;
+}
+
+export interface ShapeMask {
+  heating: boolean;
+  cooling: boolean;
+  heatingCooling: boolean;
+  linear: boolean;
+}
+
+/** Relative variance below which a degree-day column counts as constant. */
+const CONSTANT_TOLERANCE = 1e-12;
+/** 1 − r² below which HDD and CDD columns count as collinear. */
+const COLLINEAR_TOLERANCE = 1e-10;
+/** Residual sums within this share of SS_tot count as tied. */
+export const TIE_TOLERANCE = 1e-12;
+/** Intercepts above −(this × max |y|) count as ≥ 0 (rounding of an exact zero). */
+const INTERCEPT_TOLERANCE = 1e-10;
+
+function emptyBest(): ShapeBest {
+  return { found: false, heatingK: -1, coolingK: -1, ssResidual: 0, evaluated: 0, qualified: 0, failure: null };
+}
+
+/** Reusable buffers for one worker or one thread; not shared across concurrent searches. */
+export class SearchWorkspace {
+  readonly mH = new Float64Array(BASE_COUNT);
+  readonly mC = new Float64Array(BASE_COUNT);
+  readonly shh = new Float64Array(BASE_COUNT);
+  readonly scc = new Float64Array(BASE_COUNT);
+  readonly shy = new Float64Array(BASE_COUNT);
+  readonly scy = new Float64Array(BASE_COUNT);
+  readonly validH = new Uint8Array(BASE_COUNT);
+  readonly validC = new Uint8Array(BASE_COUNT);
+  readonly cross = new Float64Array(BASE_COUNT * BASE_COUNT);
+  yc = new Float64Array(64);
+  sumWeights = 0;
+  meanY = 0;
+  ssTotal = 0;
+  readonly heating = emptyBest();
+  readonly cooling = emptyBest();
+  readonly heatingCooling = emptyBest();
+  readonly linear = emptyBest();
+}
+
+function reset(b: ShapeBest, failure: CandidateFailure | null): void {
+  b.found = false;
+  b.heatingK = -1;
+  b.coolingK = -1;
+  b.ssResidual = 0;
+  b.evaluated = 0;
+  b.qualified = 0;
+  b.failure = failure;
+}
+
+/** Centred per-base sums: means, S_xx and S_xy for every base of one degree-day matrix. */
+function perBaseSums(t: PeriodTable, dd: Float64Array, ws: SearchWorkspace, m: Float64Array, sxx: Float64Array, sxy: Float64Array, valid: Uint8Array): boolean {
+  const n = t.n;
+  const w = t.days;
+  const yc = ws.yc;
+  m.fill(0);
+  sxx.fill(0);
+  sxy.fill(0);
+  for (let i = 0; i < n; i++) {
+    const wi = w[i]!;
+    const row = i * BASE_COUNT;
+    for (let k = 0; k < BASE_COUNT; k++) m[k] = m[k]! + wi * dd[row + k]!;
+  }
+  const W = ws.sumWeights;
+  for (let k = 0; k < BASE_COUNT; k++) m[k] = m[k]! / W;
+  for (let i = 0; i < n; i++) {
+    const wi = w[i]!;
+    const wy = wi * yc[i]!;
+    const row = i * BASE_COUNT;
+    for (let k = 0; k < BASE_COUNT; k++) {
+      const d = dd[row + k]! - m[k]!;
+      sxx[k] = sxx[k]! + wi * d * d;
+      sxy[k] = sxy[k]! + wy * d;
+    }
+  }
+  let any = false;
+  for (let k = 0; k < BASE_COUNT; k++) {
+    const raw = sxx[k]! + W * m[k]! * m[k]!;
+    const ok = raw > 0 && sxx[k]! > CONSTANT_TOLERANCE * raw;
+    valid[k] = ok ? 1 : 0;
+    any ||= ok;
+  }
+  return any;
+}
+
+/** One-slope degree-day shape: best qualified base. */
+function searchOneSlope(ws: SearchWorkspace, best: ShapeBest, heating: boolean, muTol: number, tieTol: number): void {
+  const m = heating ? ws.mH : ws.mC;
+  const sxx = heating ? ws.shh : ws.scc;
+  const sxy = heating ? ws.shy : ws.scy;
+  const valid = heating ? ws.validH : ws.validC;
+  let bestSs = Number.POSITIVE_INFINITY;
+  for (let k = 0; k < BASE_COUNT; k++) {
+    if (valid[k] === 0) continue;
+    best.evaluated++;
+    const beta = sxy[k]! / sxx[k]!;
+    if (!(beta > 0)) continue;
+    if (ws.meanY - beta * m[k]! < -muTol) continue;
+    best.qualified++;
+    const ss = ws.ssTotal - beta * sxy[k]!;
+    if (ss < bestSs - tieTol) {
+      bestSs = ss;
+      best.found = true;
+      best.heatingK = heating ? k : -1;
+      best.coolingK = heating ? -1 : k;
+    }
+  }
+  best.ssResidual = best.found ? Math.max(0, bestSs) : 0;
+  if (!best.found) best.failure = 'no-qualified-candidate';
+}
+
+/** Σ w·H_p(bH)·C_p(bC) over the periods where both are non-zero, for every bH ≤ bC. */
+function accumulateCross(t: PeriodTable, ws: SearchWorkspace): void {
+  const cross = ws.cross;
+  cross.fill(0);
+  const { hdd, cdd, days, minTempF, maxTempF } = t;
+  for (let i = 0; i < t.n; i++) {
+    // H_p(30 + k) > 0 iff some day is colder than 30 + k; C_p(30 + k) > 0 iff some day is warmer
+    const lo = Math.max(0, Math.floor(minTempF[i]! - 30) + 1);
+    const hi = Math.min(BASE_COUNT - 1, Math.ceil(maxTempF[i]! - 30) - 1);
+    if (lo > hi) continue;
+    const row = i * BASE_COUNT;
+    const wi = days[i]!;
+    for (let kh = lo; kh <= hi; kh++) {
+      const hv = wi * hdd[row + kh]!;
+      const base = kh * BASE_COUNT;
+      for (let kc = kh; kc <= hi; kc++) cross[base + kc] = cross[base + kc]! + hv * cdd[row + kc]!;
+    }
+  }
+}
+
+/** Two-slope shape over every (τH ≤ τC) pair. */
+function searchTwoSlope(t: PeriodTable, ws: SearchWorkspace, best: ShapeBest, muTol: number, tieTol: number): void {
+  accumulateCross(t, ws);
+  const { mH, mC, shh, scc, shy, scy, validH, validC, cross } = ws;
+  const W = ws.sumWeights;
+  const meanY = ws.meanY;
+  const sst = ws.ssTotal;
+  let bestSs = Number.POSITIVE_INFINITY;
+  let bestH = -1;
+  let bestC = -1;
+  let evaluated = 0;
+  let qualified = 0;
+  // τH < τC has 5 parameters and needs n ≥ 6; τH = τC has 4 and needs n ≥ 5
+  const twoChangePoints = t.n >= 6;
+  for (let kh = 0; kh < BASE_COUNT; kh++) {
+    if (validH[kh] === 0) continue;
+    const kcEnd = twoChangePoints ? BASE_COUNT : kh + 1;
+    const a = shh[kh]!;
+    const hy = shy[kh]!;
+    const mh = mH[kh]!;
+    const wmh = W * mh;
+    const row = kh * BASE_COUNT;
+    for (let kc = kh; kc < kcEnd; kc++) {
+      if (validC[kc] === 0) continue;
+      const d = scc[kc]!;
+      const b = cross[row + kc]! - wmh * mC[kc]!;
+      const det = a * d - b * b;
+      if (!(det > COLLINEAR_TOLERANCE * a * d)) continue;
+      evaluated++;
+      const cy = scy[kc]!;
+      const nh = d * hy - b * cy; // βH·det
+      if (!(nh > 0)) continue;
+      const nc = a * cy - b * hy; // βC·det
+      if (!(nc > 0)) continue;
+      const bh = nh / det;
+      const bc = nc / det;
+      if (meanY - bh * mh - bc * mC[kc]! < -muTol) continue;
+      qualified++;
+      const ss = sst - (bh * hy + bc * cy);
+      if (ss < bestSs - tieTol || (ss <= bestSs + tieTol && kh === kc && bestH !== bestC)) {
+        bestSs = ss;
+        bestH = kh;
+        bestC = kc;
+      }
+    }
+  }
+  best.evaluated = evaluated;
+  best.qualified = qualified;
+  if (bestH >= 0) {
+    best.found = true;
+    best.heatingK = bestH;
+    best.coolingK = bestC;
+    best.ssResidual = Math.max(0, bestSs);
+  } else {
+    best.failure = evaluated === 0 ? 'no-degree-day-variation' : 'no-qualified-candidate';
+  }
+}
+
+/** Linear in period mean temperature: closed form, no sign constraint. */
+function searchLinear(t: PeriodTable, ws: SearchWorkspace, best: ShapeBest): void {
+  const n = t.n;
+  const W = ws.sumWeights;
+  let mx = 0;
+  for (let i = 0; i < n; i++) mx += t.days[i]! * t.meanTempF[i]!;
+  mx /= W;
+  let sxx = 0;
+  let sxy = 0;
+  let raw = 0;
+  for (let i = 0; i < n; i++) {
+    const d = t.meanTempF[i]! - mx;
+    sxx += t.days[i]! * d * d;
+    sxy += t.days[i]! * d * ws.yc[i]!;
+    raw += t.days[i]! * t.meanTempF[i]! * t.meanTempF[i]!;
+  }
+  best.evaluated = 1;
+  if (!(raw > 0 && sxx > CONSTANT_TOLERANCE * raw)) {
+    best.failure = 'constant-temperature';
+    return;
+  }
+  best.qualified = 1;
+  best.found = true;
+  best.ssResidual = Math.max(0, ws.ssTotal - (sxy * sxy) / sxx);
+}
+
+/**
+ * Search every requested shape. Fills `ws.heating`, `ws.cooling`, `ws.heatingCooling`,
+ * `ws.linear` and the series totals `ws.sumWeights`, `ws.meanY`, `ws.ssTotal`.
+ * The caller has checked that the table has ≥ 2 periods and non-zero variance of use per day.
+ */
+export function searchCandidates(t: PeriodTable, mask: ShapeMask, ws: SearchWorkspace): void {
+  const n = t.n;
+  if (ws.yc.length < n) ws.yc = new Float64Array(Math.max(n, ws.yc.length * 2));
+  let W = 0;
+  let sy = 0;
+  let yMax = 0;
+  for (let i = 0; i < n; i++) {
+    W += t.days[i]!;
+    sy += t.days[i]! * t.usePerDay[i]!;
+    yMax = Math.max(yMax, Math.abs(t.usePerDay[i]!));
+  }
+  const meanY = sy / W;
+  let sst = 0;
+  for (let i = 0; i < n; i++) {
+    const d = t.usePerDay[i]! - meanY;
+    ws.yc[i] = d;
+    sst += t.days[i]! * d * d;
+  }
+  ws.sumWeights = W;
+  ws.meanY = meanY;
+  ws.ssTotal = sst;
+  const muTol = INTERCEPT_TOLERANCE * yMax;
+  const tieTol = TIE_TOLERANCE * sst;
+
+  // minimum periods: n − p ≥ 1 so that every statistic (CV(RMSE) with n − p) is defined
+  reset(ws.heating, mask.heating ? (n >= 4 ? null : 'too-few-periods') : 'not-requested');
+  reset(ws.cooling, mask.cooling ? (n >= 4 ? null : 'too-few-periods') : 'not-requested');
+  reset(ws.heatingCooling, mask.heatingCooling ? (n >= 5 ? null : 'too-few-periods') : 'not-requested');
+  reset(ws.linear, mask.linear ? (n >= 3 ? null : 'too-few-periods') : 'not-requested');
+
+  const wantH = ws.heating.failure === null || ws.heatingCooling.failure === null;
+  const wantC = ws.cooling.failure === null || ws.heatingCooling.failure === null;
+  const anyH = wantH && perBaseSums(t, t.hdd, ws, ws.mH, ws.shh, ws.shy, ws.validH);
+  const anyC = wantC && perBaseSums(t, t.cdd, ws, ws.mC, ws.scc, ws.scy, ws.validC);
+  if (ws.heating.failure === null) {
+    if (anyH) searchOneSlope(ws, ws.heating, true, muTol, tieTol);
+    else ws.heating.failure = 'no-degree-day-variation';
+  }
+  if (ws.cooling.failure === null) {
+    if (anyC) searchOneSlope(ws, ws.cooling, false, muTol, tieTol);
+    else ws.cooling.failure = 'no-degree-day-variation';
+  }
+  if (ws.heatingCooling.failure === null) {
+    if (anyH && anyC) searchTwoSlope(t, ws, ws.heatingCooling, muTol, tieTol);
+    else ws.heatingCooling.failure = 'no-degree-day-variation';
+  }
+  if (ws.linear.failure === null) searchLinear(t, ws, ws.linear);
+}
