@@ -20,7 +20,17 @@ export interface EffectivePeriods {
 /** Input indices of `bills` sorted by (startDay, endDay, index). */
 export function chronologicalOrder(bills: readonly BillPeriod[]): Int32Array {
   const order = new Int32Array(bills.length);
-  for (let i = 0; i < order.length; i++) order[i] = i;
+  let sorted = true;
+  for (let i = 0; i < order.length; i++) {
+    order[i] = i;
+    if (i > 0) {
+      const x = bills[i - 1] as BillPeriod;
+      const y = bills[i] as BillPeriod;
+      if (x.startDay > y.startDay || (x.startDay === y.startDay && x.endDay > y.endDay)) sorted = false;
+    }
+  }
+  // Bills usually arrive in date order: skip the comparator sort then.
+  if (sorted) return order;
   order.sort((a, b) => {
     const x = bills[a] as BillPeriod;
     const y = bills[b] as BillPeriod;

@@ -8,7 +8,7 @@ import { type BillRow, hasQuantity } from './bill';
 import { effectivePeriods, type EffectivePeriods } from './effective-periods';
 import { BILL_FLAG_CODES, type BillFlag, billFlag, describePeriod } from './flags';
 import { quantileSorted } from './quantile';
-import { checkBillRow, type RowCheckContext } from './row-checks';
+import { billRowCheckMask, type RowCheckContext, rowFlags } from './row-checks';
 
 // Source: CalTRACK 2.0 §2.2.3.4, off-cycle reads shorter than 25 days are dropped from the baseline.
 export const MIN_PERIOD_DAYS = 25;
@@ -121,7 +121,11 @@ const CODE_RANK = new Map(BILL_FLAG_CODES.map((c, k) => [c, k]));
  */
 export function checkBillSeries(bills: readonly BillRow[], options: SeriesCheckOptions): BillFlag[] {
   const out: BillFlag[] = [];
-  bills.forEach((b, i) => out.push(...checkBillRow(b, i, options)));
+  for (let i = 0; i < bills.length; i++) {
+    const b = bills[i] as BillRow;
+    const mask = billRowCheckMask(b, options);
+    if (mask !== 0) out.push(...rowFlags(mask, b, i, options));
+  }
   const eff = effectivePeriods(bills);
   sequenceFlags(bills, eff, out);
   lengthFlags(bills, eff, options.billing ?? 'monthly', out);

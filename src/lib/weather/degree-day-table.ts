@@ -17,7 +17,10 @@ export interface DegreeDayTable {
   readonly baseMinF: number;
   /** Number of grid bases: baseMinF, baseMinF + 1, … */
   readonly nBases: number;
-  /** Prefix sums, base-major: [b × (nDays + 1) + i] = Σ of daily HDD over the first i days. */
+  /**
+   * Prefix sums, day-major so that all bases of one day sit together: [i × nBases + b] = Σ of
+   * daily HDD at base b over the first i days.
+   */
   readonly hddPrefix: Float64Array;
   readonly cddPrefix: Float64Array;
   /** [i] = number of days with temperature among the first i days. */
@@ -36,8 +39,16 @@ export interface DegreeDayGrid {
 /** Grid bases are snapped when this close to a whole °F (e.g. 18.333… °C → 65 °F). */
 const SNAP_F = 1e-9;
 
+/** Kahan step: adds x ≥ 0 to sum[b], carrying the rounding error in err[b]. */
+function kahanAdd(sum: Float64Array, err: Float64Array, b: number, x: number): void {
+  const y = x - (err[b] as number);
+  const next = (sum[b] as number) + y;
+  err[b] = next - (sum[b] as number) - y;
+  sum[b] = next;
+}
+
 /**
- * Builds the prefix-sum table. Memory: 2 × nBases × (nDays + 1) doubles, about 3.6 MB for ten
+ * Builds the prefix-sum table. Memory: 2 × (nDays + 1) × nBases doubles, about 3.6 MB for ten
  * years at 61 bases. Each prefix is accumulated with Kahan compensation.
  * @throws RangeError when the grid is not whole °F with baseMinF ≤ baseMaxF (a programming error).
  */
@@ -49,35 +60,28 @@ export function buildDegreeDayTable(series: DailyTemperatureSeries, grid: Degree
   }
   const nDays = series.status.length;
   const nBases = baseMaxF - baseMinF + 1;
-  const stride = nDays + 1;
-  const hddPrefix = new Float64Array(nBases * stride);
-  const cddPrefix = new Float64Array(nBases * stride);
-  const countPrefix = new Int32Array(stride);
+  const hddPrefix = new Float64Array((nDays + 1) * nBases);
+  const cddPrefix = new Float64Array((nDays + 1) * nBases);
+  const countPrefix = new Int32Array(nDays + 1);
   const { meanF, status } = series;
-  for (let i = 0; i < nDays; i++) countPrefix[i + 1] = (countPrefix[i] as number) + (status[i] === DAY_MISSING ? 0 : 1);
-  for (let b = 0; b < nBases; b++) {
-    const base = baseMinF + b;
-    const row = b * stride;
-    // Kahan-compensated running sums: every term is ≥ 0, so the running sum dominates each term.
-    let hdd = 0, hddErr = 0, cdd = 0, cddErr = 0;
-    for (let i = 0; i < nDays; i++) {
-      if (status[i] !== DAY_MISSING) {
-        const t = meanF[i] as number;
-        if (t < base) {
-          const y = base - t - hddErr;
-          const s = hdd + y;
-          hddErr = s - hdd - y;
-          hdd = s;
-        } else if (t > base) {
-          const y = t - base - cddErr;
-          const s = cdd + y;
-          cddErr = s - cdd - y;
-          cdd = s;
-        }
+  // Kahan-compensated running sums per base: every term is ≥ 0, so each sum dominates its terms.
+  const hdd = new Float64Array(nBases);
+  const hddErr = new Float64Array(nBases);
+  const cdd = new Float64Array(nBases);
+  const cddErr = new Float64Array(nBases);
+  for (let i = 0; i < nDays; i++) {
+    const present = status[i] !== DAY_MISSING;
+    countPrefix[i + 1] = (countPrefix[i] as number) + (present ? 1 : 0);
+    if (present) {
+      const t = meanF[i] as number;
+      for (let b = 0; b < nBases; b++) {
+        const diff = baseMinF + b - t;
+        if (diff > 0) kahanAdd(hdd, hddErr, b, diff);
+        else if (diff < 0) kahanAdd(cdd, cddErr, b, -diff);
       }
-      hddPrefix[row + i + 1] = hdd;
-      cddPrefix[row + i + 1] = cdd;
     }
+    hddPrefix.set(hdd, (i + 1) * nBases);
+    cddPrefix.set(cdd, (i + 1) * nBases);
   }
   return { firstDay: series.firstDay, nDays, baseMinF, nBases, hddPrefix, cddPrefix, countPrefix, meanF, status };
 }
@@ -121,8 +125,8 @@ export function degreeDaySumF(
   const b = gridBaseIndex(table, baseF);
   if (b >= 0) {
     const prefix = kind === 'hdd' ? table.hddPrefix : table.cddPrefix;
-    const row = b * (table.nDays + 1);
-    return (prefix[row + i1 + 1] as number) - (prefix[row + i0] as number);
+    const n = table.nBases;
+    return (prefix[(i1 + 1) * n + b] as number) - (prefix[i0 * n + b] as number);
   }
   let sum = 0;
   const { meanF, status } = table;
@@ -151,9 +155,10 @@ export function degreeDaySum(
 }
 
 /**
- * Writes the degree-day sum over [startDay, endDay] at every grid base into
+ * Writes the degree-day sum over [startDay, endDay] at every grid base, times `scale`, into
  * `out[offset + b × stride]` (b = 0 … nBases − 1) and returns the days with temperature.
- * Allocation-free: the baseline engine calls it once per bill.
+ * Allocation-free: the baseline engine calls it once per bill (scale = 1 / days gives the
+ * CalTRACK per-day form).
  */
 export function fillDegreeDaySums(
   table: DegreeDayTable,
@@ -163,14 +168,18 @@ export function fillDegreeDaySums(
   out: Float64Array,
   offset = 0,
   stride = 1,
+  scale = 1,
 ): number {
+  const n = table.nBases;
   const i0 = Math.max(0, startDay - table.firstDay);
   const i1 = Math.min(table.nDays - 1, endDay - table.firstDay);
-  const prefix = kind === 'hdd' ? table.hddPrefix : table.cddPrefix;
-  const rowStride = table.nDays + 1;
-  for (let b = 0; b < table.nBases; b++) {
-    const row = b * rowStride;
-    out[offset + b * stride] = i1 < i0 ? 0 : (prefix[row + i1 + 1] as number) - (prefix[row + i0] as number);
+  if (i1 < i0) {
+    for (let b = 0; b < n; b++) out[offset + b * stride] = 0;
+    return 0;
   }
-  return i1 < i0 ? 0 : (table.countPrefix[i1 + 1] as number) - (table.countPrefix[i0] as number);
+  const prefix = kind === 'hdd' ? table.hddPrefix : table.cddPrefix;
+  const hi = (i1 + 1) * n;
+  const lo = i0 * n;
+  for (let b = 0; b < n; b++) out[offset + b * stride] = ((prefix[hi + b] as number) - (prefix[lo + b] as number)) * scale;
+  return (table.countPrefix[i1 + 1] as number) - (table.countPrefix[i0] as number);
 }

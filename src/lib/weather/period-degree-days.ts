@@ -84,26 +84,32 @@ export interface PeriodDegreeDayMatrix {
 /**
  * Per-day degree days (CalTRACK form) of many periods at every grid base at once, for the
  * balance-point search. Periods with no days get 0 and coverage 0; the caller decides what to
- * do with periods under the coverage threshold.
+ * do with periods under the coverage threshold. Pass `into` to reuse buffers across calls
+ * (perDay of length ≥ nBases × nPeriods, coverage ≥ nPeriods).
  */
 export function periodDegreeDayMatrix(
   table: DegreeDayTable,
   kind: DegreeDayKind,
   startDays: ArrayLike<number>,
   endDays: ArrayLike<number>,
+  into?: { perDay: Float64Array; coverage: Float64Array },
 ): PeriodDegreeDayMatrix {
   const nPeriods = startDays.length;
   const nBases = table.nBases;
-  const perDay = new Float64Array(nBases * nPeriods);
-  const coverage = new Float64Array(nPeriods);
+  const perDay = into?.perDay ?? new Float64Array(nBases * nPeriods);
+  const coverage = into?.coverage ?? new Float64Array(nPeriods);
+  if (perDay.length < nBases * nPeriods || coverage.length < nPeriods) {
+    throw new RangeError('periodDegreeDayMatrix: buffers too small');
+  }
   for (let p = 0; p < nPeriods; p++) {
     const start = startDays[p] as number;
-    const end = endDays[p] as number;
-    const days = end - start + 1;
-    if (days <= 0) continue;
-    coverage[p] = fillDegreeDaySums(table, kind, start, end, perDay, p, nPeriods) / days;
-    const inv = 1 / days;
-    for (let b = 0; b < nBases; b++) perDay[b * nPeriods + p] = (perDay[b * nPeriods + p] as number) * inv;
+    const days = (endDays[p] as number) - start + 1;
+    if (days <= 0) {
+      for (let b = 0; b < nBases; b++) perDay[b * nPeriods + p] = 0;
+      coverage[p] = 0;
+      continue;
+    }
+    coverage[p] = fillDegreeDaySums(table, kind, start, start + days - 1, perDay, p, nPeriods, 1 / days) / days;
   }
   return { nPeriods, nBases, baseMinF: table.baseMinF, perDay, coverage };
 }
