@@ -1,0 +1,71 @@
+/**
+ * Every request: start-up (once), the session → Astro.locals.actor, sign-in required outside the
+ * public pages, and the security headers.
+ */
+import { defineMiddleware } from 'astro:middleware';
+import { getAuth, SESSION_ABSOLUTE_SECONDS } from './server/auth';
+import { loadActor } from './server/actor';
+import { errorResponse, errors, HttpError } from './server/http';
+import { ensureRuntime } from './server/runtime';
+import { securityHeaders } from './server/security-headers';
+
+const PUBLIC_PAGES = new Set(['/sign-in', '/forgot-password', '/reset-password']);
+const PUBLIC_PREFIXES = ['/api/auth/', '/_astro/', '/fonts/'];
+const PUBLIC_FILES = new Set(['/api/health', '/favicon.svg', '/robots.txt']);
+
+function isPublic(path: string): boolean {
+  return PUBLIC_PAGES.has(path) || PUBLIC_FILES.has(path) || PUBLIC_PREFIXES.some((p) => path.startsWith(p));
+}
+
+function escapeHtml(s: string): string {
+  return s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
+}
+
+/** A plain page for a refused or missing page (the API answers JSON instead). */
+function errorPage(status: number, message: string): Response {
+  const title = status === 403 ? 'Not allowed' : status === 404 ? 'Not found' : 'Something went wrong';
+  const body = `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><title>${title} · Plumbline</title></head><body style="font-family:system-ui,sans-serif;max-width:40rem;margin:4rem auto;padding:0 1rem;color:#17202c"><h1>${title}</h1><p>${escapeHtml(message)}</p><p><a href="/">Back to the region board</a></p></body></html>`;
+  return new Response(body, { status, headers: { 'content-type': 'text/html; charset=utf-8' } });
+}
+
+export const onRequest = defineMiddleware(async (ctx, next) => {
+  ctx.locals.actor = null;
+  ctx.locals.sessionId = null;
+  if (ctx.isPrerendered) return next();
+
+  try {
+    await ensureRuntime();
+  } catch (e) {
+    console.error('[start-up] failed:', e);
+    return new Response('Plumbline could not start: see the server log.', { status: 503 });
+  }
+
+  const path = ctx.url.pathname;
+  if (!path.startsWith('/api/auth/') && !path.startsWith('/_astro/')) {
+    const auth = await getAuth();
+    const session = await auth.api.getSession({ headers: ctx.request.headers }).catch(() => null);
+    if (session) {
+      const age = (Date.now() - new Date(session.session.createdAt).getTime()) / 1000;
+      if (age <= SESSION_ABSOLUTE_SECONDS && !session.user.banned) {
+        ctx.locals.actor = await loadActor(session.user);
+        ctx.locals.sessionId = session.session.id;
+      }
+    }
+  }
+
+  if (!ctx.locals.actor && !isPublic(path)) {
+    if (path.startsWith('/api/')) return securityHeaders(errorResponse(errors.unauthorized()));
+    const nextPath = path + ctx.url.search;
+    return securityHeaders(ctx.redirect(`/sign-in?next=${encodeURIComponent(nextPath)}`, 303));
+  }
+
+  try {
+    return securityHeaders(await next());
+  } catch (e) {
+    if (e instanceof HttpError) {
+      if (path.startsWith('/api/')) return securityHeaders(errorResponse(e));
+      return securityHeaders(errorPage(e.status, e.message));
+    }
+    throw e;
+  }
+});

@@ -1,0 +1,114 @@
+/**
+ * The API's one error shape, `{ error: { code, message, details } }`, and the wrapper every
+ * endpoint uses: it turns thrown HttpErrors and validation failures into that shape, and any
+ * other failure into a 500 with a support id (the cause goes to the server log, not the client).
+ */
+import { randomUUID } from 'node:crypto';
+import type { APIContext, APIRoute } from 'astro';
+import { z, type ZodType } from 'zod';
+import { MAX_JSON_BYTES } from './config';
+
+export class HttpError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly details: unknown = null,
+  ) {
+    super(message);
+    this.name = 'HttpError';
+  }
+}
+
+export const errors = {
+  badRequest: (message: string, details: unknown = null) => new HttpError(400, 'invalid_request', message, details),
+  unauthorized: () => new HttpError(401, 'unauthenticated', 'Sign in to continue.'),
+  forbidden: (message = 'You may not do this.') => new HttpError(403, 'forbidden', message),
+  notFound: (message = 'Not found.') => new HttpError(404, 'not_found', message),
+  conflict: (message: string, details: unknown = null) => new HttpError(409, 'conflict', message, details),
+  tooLarge: (message: string) => new HttpError(413, 'too_large', message),
+  unsupportedMediaType: (message: string) => new HttpError(415, 'unsupported_media_type', message),
+  unprocessable: (message: string, details: unknown = null) => new HttpError(422, 'unprocessable', message, details),
+};
+
+export function json(data: unknown, init: ResponseInit = {}): Response {
+  const headers = new Headers(init.headers);
+  headers.set('content-type', 'application/json; charset=utf-8');
+  headers.set('cache-control', 'no-store');
+  return new Response(JSON.stringify(data), { ...init, headers });
+}
+
+export function errorResponse(e: HttpError): Response {
+  return json({ error: { code: e.code, message: e.message, details: e.details } }, { status: e.status });
+}
+
+/** Zod issues as `{ field, message }` pairs, and one sentence naming the fields. */
+export function describeZodError(error: z.ZodError): { message: string; details: { field: string; message: string }[] } {
+  const details = error.issues.map((i) => ({ field: i.path.join('.') || '(body)', message: i.message }));
+  const message = details.map((d) => `${d.field}: ${d.message}`).join('; ');
+  return { message: `Invalid input — ${message}`, details };
+}
+
+/** Parses a value with a schema; @throws 400 naming each bad field. */
+export function parseWith<T>(schema: ZodType<T>, value: unknown): T {
+  const r = schema.safeParse(value);
+  if (!r.success) {
+    const { message, details } = describeZodError(r.error);
+    throw errors.badRequest(message, details);
+  }
+  return r.data;
+}
+
+/**
+ * Reads a JSON body: requires `Content-Type: application/json` (415 otherwise: forces a CORS
+ * preflight for cross-site callers, ASVS 4.0.3 13.2.5), caps its size and validates it.
+ */
+export async function readJson<T>(ctx: APIContext, schema: ZodType<T>): Promise<T> {
+  const type = ctx.request.headers.get('content-type') ?? '';
+  if (!/^application\/json\b/i.test(type)) throw errors.unsupportedMediaType('Send the body as application/json.');
+  const declared = Number(ctx.request.headers.get('content-length') ?? 0);
+  if (declared > MAX_JSON_BYTES) throw errors.tooLarge(`The body is larger than ${MAX_JSON_BYTES} bytes.`);
+  const text = await ctx.request.text();
+  if (text.length > MAX_JSON_BYTES) throw errors.tooLarge(`The body is larger than ${MAX_JSON_BYTES} bytes.`);
+  let value: unknown;
+  try {
+    value = JSON.parse(text);
+  } catch {
+    throw errors.badRequest('The body is not valid JSON.');
+  }
+  return parseWith(schema, value);
+}
+
+/** Query parameters as a plain object, validated. */
+export function readQuery<T>(ctx: APIContext, schema: ZodType<T>): T {
+  return parseWith(schema, Object.fromEntries(ctx.url.searchParams));
+}
+
+type Handler = (ctx: APIContext) => Promise<Response> | Response;
+
+/** Wraps an endpoint: HttpError → its status; anything else → 500 with a support id. */
+export function endpoint(handler: Handler): APIRoute {
+  return async (ctx) => {
+    try {
+      return await handler(ctx);
+    } catch (e) {
+      if (e instanceof HttpError) return errorResponse(e);
+      if (e instanceof z.ZodError) {
+        const { message, details } = describeZodError(e);
+        return errorResponse(errors.badRequest(message, details));
+      }
+      const supportId = randomUUID().slice(0, 8);
+      console.error(`[api] ${ctx.request.method} ${ctx.url.pathname} failed (support id ${supportId}):`, e);
+      return errorResponse(
+        new HttpError(500, 'internal', `Something went wrong on our side. Support id: ${supportId}.`, { supportId }),
+      );
+    }
+  };
+}
+
+/** Reads a path parameter that must be a UUID; @throws 404 otherwise (an id that cannot exist). */
+export function uuidParam(ctx: APIContext, name: string): string {
+  const v = ctx.params[name] ?? '';
+  if (!/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(v)) throw errors.notFound();
+  return v.toLowerCase();
+}

@@ -1,0 +1,50 @@
+/**
+ * Scheduled jobs (node-cron). Each run is recorded in job_run. Jobs are registered here by the
+ * features that need them; the scheduler starts once per process.
+ */
+import cron, { type ScheduledTask } from 'node-cron';
+import { eq } from 'drizzle-orm';
+import { hostname } from 'node:os';
+import { getDb } from '../db/client';
+import { jobRun } from '../db/schema';
+
+export interface JobDefinition {
+  name: string;
+  /** cron expression, server time zone UTC */
+  schedule: string;
+  run(): Promise<string>;
+}
+
+const KEY = Symbol.for('plumbline.jobs');
+type Holder = typeof globalThis & { [KEY]?: ScheduledTask[] };
+const holder = globalThis as Holder;
+
+export const JOBS: JobDefinition[] = [];
+
+const instance = `${hostname()}:${process.pid}`;
+
+/** Runs one job now, recording the run. */
+export async function runJob(job: JobDefinition): Promise<{ status: 'ok' | 'failed'; detail: string }> {
+  const db = await getDb();
+  const [row] = await db.insert(jobRun).values({ job: job.name, instance, status: 'running' }).returning({ id: jobRun.id });
+  try {
+    const detail = await job.run();
+    await db.update(jobRun).set({ status: 'ok', detail, finishedAt: new Date() }).where(eq(jobRun.id, row!.id));
+    return { status: 'ok', detail };
+  } catch (e) {
+    const detail = (e as Error).message;
+    console.error(`[jobs] ${job.name} failed:`, e);
+    await db.update(jobRun).set({ status: 'failed', detail, finishedAt: new Date() }).where(eq(jobRun.id, row!.id));
+    return { status: 'failed', detail };
+  }
+}
+
+export function startJobs(): void {
+  if (holder[KEY]) return;
+  holder[KEY] = JOBS.map((job) => cron.schedule(job.schedule, () => void runJob(job), { timezone: 'UTC' }));
+}
+
+export function stopJobs(): void {
+  for (const t of holder[KEY] ?? []) void t.stop();
+  delete holder[KEY];
+}

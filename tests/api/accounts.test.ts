@@ -1,0 +1,123 @@
+/** Sign-in and landing per role, password reset by mail through the local SMTP server, admin screens. */
+import { describe, expect, it } from 'vitest';
+import { baseUrl, call, DEMO, signIn } from '../support/http';
+
+const LANDING: Record<keyof typeof DEMO, string> = {
+  admin: '/',
+  manager: '/',
+  staff: '/installations',
+  analyst: '/baselines',
+  auditor: '/walkthroughs',
+  custodian: '/kits',
+};
+
+describe('sign-in', () => {
+  it.each(Object.keys(DEMO) as (keyof typeof DEMO)[])('%s signs in and lands on the page of the role', async (role) => {
+    const cookie = await signIn(DEMO[role]);
+    const start = await fetch(`${baseUrl()}/start`, { headers: { cookie }, redirect: 'manual' });
+    expect(start.status).toBe(303);
+    expect(new URL(start.headers.get('location')!, baseUrl()).pathname).toBe(LANDING[role]);
+    const page = await fetch(`${baseUrl()}${LANDING[role]}`, { headers: { cookie } });
+    expect(page.status).toBe(200);
+    expect(await page.text()).toContain('Sign out');
+  });
+
+  it('pages redirect to sign-in without a session; the API answers 401', async () => {
+    const page = await fetch(`${baseUrl()}/buildings`, { redirect: 'manual' });
+    expect(page.status).toBe(303);
+    expect(page.headers.get('location')).toBe('/sign-in?next=%2Fbuildings');
+    const api = await call(null, 'GET', '/api/installations');
+    expect(api.status).toBe(401);
+  });
+
+  it('a wrong password gets 401 and no cookie', async () => {
+    const r = await fetch(`${baseUrl()}/api/auth/sign-in/email`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json', origin: baseUrl() },
+      body: JSON.stringify({ email: DEMO.analyst, password: 'not-the-password' }),
+    });
+    expect(r.status).toBe(401);
+    expect(r.headers.getSetCookie().some((c) => c.startsWith('better-auth.session_token=') && !c.includes('Max-Age=0'))).toBe(false);
+  });
+
+  it('the session cookie is HttpOnly and lives at most 12 hours', async () => {
+    const r = await fetch(`${baseUrl()}/api/auth/sign-in/email`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json', origin: baseUrl() },
+      body: JSON.stringify({ email: DEMO.custodian, password: 'plumbline-demo-2026' }),
+    });
+    const c = r.headers.getSetCookie().find((x) => x.startsWith('better-auth.session_token='))!;
+    expect(c).toMatch(/HttpOnly/i);
+    const maxAge = Number(/Max-Age=(\d+)/.exec(c)![1]);
+    expect(maxAge).toBeLessThanOrEqual(12 * 3600);
+  });
+
+  it('pages send the security headers', async () => {
+    const r = await fetch(`${baseUrl()}/sign-in`);
+    expect(r.headers.get('content-security-policy')).toMatch(/frame-ancestors 'none'/);
+    expect(r.headers.get('x-content-type-options')).toBe('nosniff');
+    expect(r.headers.get('referrer-policy')).toBe('same-origin');
+  });
+});
+
+describe('password reset', () => {
+  it('mails a link through the local SMTP server; the link sets a new password', async () => {
+    // A fresh account so other tests keep their passwords.
+    const email = `reset.${Date.now()}@example.test`;
+    const created = await call('admin', 'POST', '/api/users', { email, name: 'Reset Tester', role: 'analyst' });
+    expect(created.status).toBe(201);
+    const ask = await fetch(`${baseUrl()}/api/auth/request-password-reset`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json', origin: baseUrl() },
+      body: JSON.stringify({ email, redirectTo: `${baseUrl()}/reset-password` }),
+    });
+    expect(ask.status).toBe(200);
+    // The outbox holds the message, received by the SMTP server (a real round trip).
+    let mail: { to: string; subject: string; text: string; receivedAt: string | null } | undefined;
+    for (let i = 0; i < 40 && !mail?.receivedAt; i++) {
+      const box = await call('admin', 'GET', '/api/outbox');
+      mail = box.body.items.find((m: { to: string; subject: string }) => m.to === email && /Reset your Plumbline password/.test(m.subject));
+      if (!mail?.receivedAt) await new Promise((r) => setTimeout(r, 250));
+    }
+    expect(mail?.receivedAt).toBeTruthy();
+    const link = /(http:\/\/\S+\/api\/auth\/reset-password\/\S+)/.exec(mail!.text)![1]!;
+    const follow = await fetch(link, { redirect: 'manual' });
+    expect(follow.status).toBe(302);
+    const to = new URL(follow.headers.get('location')!, baseUrl());
+    expect(to.pathname).toBe('/reset-password');
+    const token = to.searchParams.get('token')!;
+    const short = await fetch(`${baseUrl()}/api/auth/reset-password`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json', origin: baseUrl() },
+      body: JSON.stringify({ token, newPassword: 'too-short' }),
+    });
+    expect(short.status).toBe(400);
+    const set = await fetch(`${baseUrl()}/api/auth/reset-password`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json', origin: baseUrl() },
+      body: JSON.stringify({ token, newPassword: 'a brand new passphrase' }),
+    });
+    expect(set.status).toBe(200);
+    const cookie = await signIn(email, 'a brand new passphrase');
+    expect(cookie).toMatch(/better-auth.session_token=/);
+  });
+});
+
+describe('administration', () => {
+  it('a role change is logged and takes effect at once', async () => {
+    const email = `role.${Date.now()}@example.test`;
+    const created = await call('admin', 'POST', '/api/users', { email, name: 'Role Changer', role: 'installation_staff', installations: ['DMF'] });
+    expect(created.status).toBe(201);
+    const patched = await call('admin', 'PATCH', `/api/users/${created.body.id}`, { role: 'auditor', installations: ['FHS'] });
+    expect(patched.status).toBe(200);
+    expect(patched.body).toMatchObject({ role: 'auditor', installations: ['FHS'] });
+    const log = await call('admin', 'GET', '/api/activity?action=user.role-change');
+    expect(log.body.items.some((e: { details: { email: string; to: string } }) => e.details.email === email && e.details.to === 'auditor')).toBe(true);
+  });
+
+  it('unknown installations in an assignment are refused by name', async () => {
+    const r = await call('admin', 'POST', '/api/users', { email: `x.${Date.now()}@example.test`, name: 'Nobody Here', role: 'auditor', installations: ['NOPE'] });
+    expect(r.status).toBe(400);
+    expect(r.body.error.message).toMatch(/NOPE/);
+  });
+});

@@ -1,0 +1,134 @@
+/**
+ * Every API route, without a session and as installation staff of one installation reaching for
+ * another installation's data. The route list is read from src/pages/api, so a new route without
+ * an entry here fails the test.
+ */
+import { beforeAll, describe, expect, it } from 'vitest';
+import { apiRoutes } from '../support/routes';
+import { call, type CallResult } from '../support/http';
+
+interface Fixture {
+  own: { installation: string; building: string; meter: string };
+  foreign: { installation: string; building: string; meter: string };
+  staffUserId: string;
+}
+let fx: Fixture;
+
+beforeAll(async () => {
+  const buildings = (await call('admin', 'GET', '/api/buildings')).body.items as { id: string; installationCode: string }[];
+  const meters = (await call('admin', 'GET', '/api/meters')).body.items as { id: string; installationCode: string }[];
+  const users = (await call('admin', 'GET', '/api/users')).body.items as { id: string; email: string }[];
+  const pick = (code: string) => ({
+    installation: code,
+    building: buildings.find((b) => b.installationCode === code)!.id,
+    meter: meters.find((m) => m.installationCode === code)!.id,
+  });
+  fx = { own: pick('BNP'), foreign: pick('KSL'), staffUserId: users.find((u) => u.email === 'staff@demo.plumbline.test')!.id };
+});
+
+type Side = 'own' | 'foreign';
+interface RouteCase {
+  /** Public routes answer without a session. */
+  public?: boolean;
+  /** The request installation staff of BNP makes for its own or a foreign object. */
+  request: (side: Side) => { path: string; body?: unknown };
+  /** Expected status for staff: own side, foreign side. */
+  staff: { own: number[]; foreign: number[] };
+}
+
+const same = (side: Side) => fx[side];
+const CASES: Record<string, RouteCase> = {
+  'GET /api/health': { public: true, request: () => ({ path: '/api/health' }), staff: { own: [200], foreign: [200] } },
+  'ALL /api/auth/[...all]': { public: true, request: () => ({ path: '/api/auth/get-session' }), staff: { own: [200], foreign: [200] } },
+  'GET /api/me': { request: () => ({ path: '/api/me' }), staff: { own: [200], foreign: [200] } },
+  'GET /api/installations': { request: () => ({ path: '/api/installations' }), staff: { own: [200], foreign: [200] } },
+  'POST /api/installations': {
+    request: (s) => ({ path: '/api/installations', body: { code: s === 'own' ? 'ZZOWN' : 'ZZFOR', name: 'Nope', timeZone: 'UTC' } }),
+    staff: { own: [403], foreign: [403] },
+  },
+  'GET /api/installations/[code]': { request: (s) => ({ path: `/api/installations/${same(s).installation}` }), staff: { own: [200], foreign: [403] } },
+  'PATCH /api/installations/[code]': {
+    request: (s) => ({ path: `/api/installations/${same(s).installation}`, body: { climate: 'x' } }),
+    staff: { own: [403], foreign: [403] },
+  },
+  'GET /api/buildings': { request: (s) => ({ path: `/api/buildings?installation=${same(s).installation}` }), staff: { own: [200], foreign: [403] } },
+  'POST /api/buildings': {
+    request: (s) => ({
+      path: '/api/buildings',
+      body: { installation: same(s).installation, number: `T${Date.now() % 100000}`, name: 'Scope test', useType: 'office', grossAreaFt2: 1000 },
+    }),
+    staff: { own: [201], foreign: [403] },
+  },
+  'GET /api/buildings/[id]': { request: (s) => ({ path: `/api/buildings/${same(s).building}` }), staff: { own: [200], foreign: [404] } },
+  'PATCH /api/buildings/[id]': {
+    request: (s) => ({ path: `/api/buildings/${same(s).building}`, body: { notes: 'checked by the scope test' } }),
+    staff: { own: [200], foreign: [404] },
+  },
+  'GET /api/meters': { request: (s) => ({ path: `/api/meters?installation=${same(s).installation}` }), staff: { own: [200], foreign: [403] } },
+  'POST /api/meters': {
+    request: (s) => ({ path: '/api/meters', body: { buildingId: same(s).building, code: `SCOPE-${s}-${Date.now() % 100000}`, commodity: 'water', unit: 'kgal' } }),
+    staff: { own: [201], foreign: [404] },
+  },
+  'GET /api/meters/[id]': { request: (s) => ({ path: `/api/meters/${same(s).meter}` }), staff: { own: [200], foreign: [404] } },
+  'PATCH /api/meters/[id]': { request: (s) => ({ path: `/api/meters/${same(s).meter}`, body: { account: 'A-1' } }), staff: { own: [200], foreign: [404] } },
+  'GET /api/bills': { request: (s) => ({ path: `/api/bills?meter=${same(s).meter}` }), staff: { own: [200], foreign: [404] } },
+  'GET /api/users': { request: () => ({ path: '/api/users' }), staff: { own: [403], foreign: [403] } },
+  'POST /api/users': {
+    request: () => ({ path: '/api/users', body: { email: 'nobody@example.test', name: 'No Body', role: 'admin' } }),
+    staff: { own: [403], foreign: [403] },
+  },
+  'PATCH /api/users/[id]': { request: () => ({ path: `/api/users/${fx.staffUserId}`, body: { role: 'admin' } }), staff: { own: [403], foreign: [403] } },
+  'GET /api/outbox': { request: () => ({ path: '/api/outbox' }), staff: { own: [403], foreign: [403] } },
+  'GET /api/activity': { request: () => ({ path: '/api/activity' }), staff: { own: [403], foreign: [403] } },
+};
+
+function methodOf(route: string): string {
+  const m = route.split(' ')[0]!;
+  return m === 'ALL' ? 'GET' : m;
+}
+
+describe('route table', () => {
+  it('has an entry for every route under src/pages/api', () => {
+    const routes = apiRoutes();
+    expect(routes.length).toBeGreaterThan(10);
+    expect(routes.filter((r) => !(r in CASES))).toEqual([]);
+  });
+});
+
+describe.each(Object.keys(CASES))('%s', (route) => {
+  const c = CASES[route]!;
+  it(c.public ? 'answers without a session' : 'answers 401 without a session', async () => {
+    const { path, body } = c.request('own');
+    const r = await call(null, methodOf(route), path, body);
+    if (c.public) expect(r.status).toBeLessThan(400);
+    else {
+      expect(r.status).toBe(401);
+      expect(r.body.error.code).toBe('unauthenticated');
+    }
+  });
+  it('keeps installation staff inside their installation', async () => {
+    const own: CallResult = await call('staff', methodOf(route), c.request('own').path, c.request('own').body);
+    expect(c.staff.own, `own: ${JSON.stringify(own.body)}`).toContain(own.status);
+    const foreign: CallResult = await call('staff', methodOf(route), c.request('foreign').path, c.request('foreign').body);
+    expect(c.staff.foreign, `foreign: ${JSON.stringify(foreign.body)}`).toContain(foreign.status);
+    if (foreign.status >= 400 && !c.public) expect(foreign.body.error).toMatchObject({ code: expect.any(String), message: expect.any(String) });
+  });
+});
+
+describe('lists hold only what the caller may see', () => {
+  it('installation staff list only their installation and its buildings', async () => {
+    const inst = await call('staff', 'GET', '/api/installations');
+    expect(inst.body.items.map((i: { code: string }) => i.code)).toEqual(['BNP']);
+    const b = await call('staff', 'GET', '/api/buildings');
+    expect(b.body.items.length).toBeGreaterThan(0);
+    expect(new Set(b.body.items.map((x: { installationCode: string }) => x.installationCode))).toEqual(new Set(['BNP']));
+  });
+  it('the regional manager reads every installation', async () => {
+    const inst = await call('manager', 'GET', '/api/installations');
+    expect(inst.body.items.length).toBe(5);
+  });
+  it('an auditor sees the two installations assigned', async () => {
+    const inst = await call('auditor', 'GET', '/api/installations');
+    expect(inst.body.items.map((i: { code: string }) => i.code).sort()).toEqual(['BNP', 'KSL']);
+  });
+});

@@ -1,0 +1,69 @@
+/** HTTP helpers for API tests: sign in as a demo account and call the API with its cookie. */
+import { inject } from 'vitest';
+
+export const DEMO_PASSWORD = 'plumbline-demo-2026';
+export const DEMO = {
+  admin: 'admin@demo.plumbline.test',
+  manager: 'manager@demo.plumbline.test',
+  staff: 'staff@demo.plumbline.test', // installation staff of BNP only
+  analyst: 'analyst@demo.plumbline.test',
+  auditor: 'auditor@demo.plumbline.test', // BNP and KSL
+  custodian: 'custodian@demo.plumbline.test',
+} as const;
+export type DemoRole = keyof typeof DEMO;
+
+export function baseUrl(): string {
+  return inject('baseUrl');
+}
+
+const cookies = new Map<string, string>();
+
+/** Signs in (once per file and account) and returns the session cookie. */
+export async function signIn(email: string, password = DEMO_PASSWORD): Promise<string> {
+  const cached = cookies.get(email + password);
+  if (cached) return cached;
+  const res = await fetch(`${baseUrl()}/api/auth/sign-in/email`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', origin: baseUrl() },
+    body: JSON.stringify({ email, password }),
+  });
+  if (!res.ok) throw new Error(`sign-in ${email} failed: ${res.status} ${await res.text()}`);
+  const cookie = res.headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0])
+    .join('; ');
+  cookies.set(email + password, cookie);
+  return cookie;
+}
+
+export interface CallResult<T = any> {
+  status: number;
+  body: T;
+  headers: Headers;
+}
+
+/** Calls the API; `as` is a demo role, an e-mail, or null for no session. */
+export async function call<T = any>(
+  as: DemoRole | string | null,
+  method: string,
+  path: string,
+  body?: unknown,
+  init: { contentType?: string; raw?: BodyInit } = {},
+): Promise<CallResult<T>> {
+  const headers: Record<string, string> = { origin: baseUrl() };
+  if (as) headers.cookie = await signIn(as in DEMO ? DEMO[as as DemoRole] : as);
+  let payload: BodyInit | undefined = init.raw;
+  if (body !== undefined) {
+    headers['content-type'] = init.contentType ?? 'application/json';
+    payload = JSON.stringify(body);
+  } else if (init.contentType) headers['content-type'] = init.contentType;
+  const res = await fetch(`${baseUrl()}${path}`, { method, headers, body: payload, redirect: 'manual' });
+  const text = await res.text();
+  let parsed: unknown = text;
+  try {
+    parsed = text ? JSON.parse(text) : null;
+  } catch {
+    /* html or text */
+  }
+  return { status: res.status, body: parsed as T, headers: res.headers };
+}
