@@ -64,6 +64,10 @@ export type FileFailureReason =
   | 'duplicate-columns'
   | 'record-too-long'
   | 'malformed-json'
+  | 'malformed-xml'
+  | 'dtd-not-allowed'
+  | 'not-green-button'
+  | 'no-usage'
   | 'read-error';
 
 /** A file-level refusal: nothing from the file may be stored. */
