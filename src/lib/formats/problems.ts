@@ -59,6 +59,7 @@ export type FileFailureReason =
   | 'invalid-utf8'
   | 'no-header'
   | 'mapping-invalid'
+  | 'options-invalid'
   | 'no-mappable-columns'
   | 'missing-columns'
   | 'duplicate-columns'
