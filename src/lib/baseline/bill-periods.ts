@@ -11,7 +11,7 @@
  */
 import { BASE_COUNT } from './grid';
 import type { DailyTemperatures } from './daily-temperatures';
-import { fillPeriodDegreeDays, type PeriodTemperatureSummary } from './period-degree-days';
+import { fillPeriodFromStation, stationDegreeDays, type PeriodFill } from './station-degree-days';
 
 /** Bills of one series as parallel arrays of day numbers (inclusive) and quantities. */
 export interface BillArrays {
@@ -46,17 +46,17 @@ export class PeriodTable {
   quantity = new Float64Array(0);
   usePerDay = new Float64Array(0);
   meanTempF = new Float64Array(0);
-  minTempF = new Float64Array(0);
-  maxTempF = new Float64Array(0);
+  /** First grid index where HDD_p > 0, and last where CDD_p > 0 (sparsity of the DD rows). */
+  heatingFrom = new Int32Array(0);
+  coolingTo = new Int32Array(0);
   hdd = new Float64Array(0);
   cdd = new Float64Array(0);
   /** Periods whose start was moved one day later by the shared-read-date rule. */
   sharedReadDates = 0;
   /** Pairs of consecutive bills that overlap by more than a shared read date (kept, reported). */
   overlaps = 0;
-  scratch = new Float64Array(64);
   order = new Int32Array(0);
-  readonly summary: PeriodTemperatureSummary = { count: 0, meanF: 0, minF: 0, maxF: 0 };
+  readonly fill: PeriodFill = { count: 0, meanF: 0, heatingFrom: 0, coolingTo: 0 };
 
   ensureCapacity(n: number): void {
     if (n <= this.capacity) return;
@@ -69,8 +69,8 @@ export class PeriodTable {
     this.quantity = new Float64Array(cap);
     this.usePerDay = new Float64Array(cap);
     this.meanTempF = new Float64Array(cap);
-    this.minTempF = new Float64Array(cap);
-    this.maxTempF = new Float64Array(cap);
+    this.heatingFrom = new Int32Array(cap);
+    this.coolingTo = new Int32Array(cap);
     this.hdd = new Float64Array(cap * BASE_COUNT);
     this.cdd = new Float64Array(cap * BASE_COUNT);
     this.order = new Int32Array(cap);
@@ -79,7 +79,12 @@ export class PeriodTable {
 
 /** Sort bill indices by start day, then end day, then input position (stable, deterministic). */
 function sortBillOrder(bills: BillArrays, order: Int32Array, count: number): void {
-  for (let i = 0; i < count; i++) order[i] = i;
+  let sorted = true;
+  for (let i = 0; i < count; i++) {
+    order[i] = i;
+    if (i > 0 && (bills.startDay[i]! < bills.startDay[i - 1]! || (bills.startDay[i] === bills.startDay[i - 1] && bills.endDay[i]! < bills.endDay[i - 1]!))) sorted = false;
+  }
+  if (sorted) return;
   const view = order.subarray(0, count);
   view.sort((a, b) => bills.startDay[a]! - bills.startDay[b]! || bills.endDay[a]! - bills.endDay[b]! || a - b);
 }
@@ -100,6 +105,7 @@ export function buildPeriodTable(
   table.sharedReadDates = 0;
   table.overlaps = 0;
   const dropped: DroppedPeriod[] = [];
+  const station = stationDegreeDays(temps);
   const order = table.order;
   sortBillOrder(bills, order, count);
   let prevEnd = Number.NEGATIVE_INFINITY;
@@ -129,9 +135,8 @@ export function buildPeriodTable(
       dropped.push({ index: idx, startDay: start0, endDay: end, reason: 'no-days-left', temperatureCoverage: null });
       continue;
     }
-    if (table.scratch.length < days) table.scratch = new Float64Array(Math.max(days, table.scratch.length * 2));
     const i = table.n;
-    const s = fillPeriodDegreeDays(temps, start, end, table.hdd, table.cdd, i * BASE_COUNT, table.scratch, table.summary);
+    const s = fillPeriodFromStation(station, start, end, table.hdd, table.cdd, i * BASE_COUNT, table.fill);
     const coverage = s.count / days;
     if (coverage < minCoverage || s.count === 0) {
       dropped.push({ index: idx, startDay: start0, endDay: end, reason: 'insufficient-temperature', temperatureCoverage: coverage });
@@ -144,8 +149,8 @@ export function buildPeriodTable(
     table.quantity[i] = q;
     table.usePerDay[i] = q / days;
     table.meanTempF[i] = s.meanF;
-    table.minTempF[i] = s.minF;
-    table.maxTempF[i] = s.maxF;
+    table.heatingFrom[i] = s.heatingFrom;
+    table.coolingTo[i] = s.coolingTo;
     table.n = i + 1;
   }
   return dropped;

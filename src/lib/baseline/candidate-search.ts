@@ -35,9 +35,8 @@ export interface ShapeBest {
   coolingK: number;
   /** Σ w (y − ŷ)² of the candidate. */
   ssResidual: number;
-  /** Candidates fitted (non-degenerate) and those that qualified. */
+  /** Candidates fitted (non-degenerate: varying degree days, not collinear). */
   evaluated: number;
-  qualified: number;
   failure: CandidateFailure | null;
 }
 
@@ -58,7 +57,7 @@ export const TIE_TOLERANCE = 1e-12;
 const INTERCEPT_TOLERANCE = 1e-10;
 
 function emptyBest(): ShapeBest {
-  return { found: false, heatingK: -1, coolingK: -1, ssResidual: 0, evaluated: 0, qualified: 0, failure: null };
+  return { found: false, heatingK: -1, coolingK: -1, ssResidual: 0, evaluated: 0, failure: null };
 }
 
 /** Reusable buffers for one worker or one thread; not shared across concurrent searches. */
@@ -71,6 +70,7 @@ export class SearchWorkspace {
   readonly scy = new Float64Array(BASE_COUNT);
   readonly validH = new Uint8Array(BASE_COUNT);
   readonly validC = new Uint8Array(BASE_COUNT);
+  readonly nonZeroWeight = new Float64Array(BASE_COUNT);
   readonly cross = new Float64Array(BASE_COUNT * BASE_COUNT);
   yc = new Float64Array(64);
   sumWeights = 0;
@@ -88,38 +88,61 @@ function reset(b: ShapeBest, failure: CandidateFailure | null): void {
   b.coolingK = -1;
   b.ssResidual = 0;
   b.evaluated = 0;
-  b.qualified = 0;
   b.failure = failure;
 }
 
-/** Centred per-base sums: means, S_xx and S_xy for every base of one degree-day matrix. */
-function perBaseSums(t: PeriodTable, dd: Float64Array, ws: SearchWorkspace, m: Float64Array, sxx: Float64Array, sxy: Float64Array, valid: Uint8Array): boolean {
+/**
+ * Centred per-base sums for every base of one degree-day matrix: means m, S_xx = Σ w (x − m)²
+ * and S_xy = Σ w (x − m)(y − ȳ). Only the non-zero entries are visited (a period has no HDD at
+ * bases below its coldest day, no CDD above its warmest); the zero entries contribute
+ * m²·(W − W_nz) to S_xx exactly, and nothing to S_xy = Σ w x (y − ȳ) since Σ w (y − ȳ) = 0.
+ */
+function perBaseSums(t: PeriodTable, heating: boolean, ws: SearchWorkspace): boolean {
   const n = t.n;
   const w = t.days;
   const yc = ws.yc;
+  const W = ws.sumWeights;
+  const dd = heating ? t.hdd : t.cdd;
+  const m = heating ? ws.mH : ws.mC;
+  const sxx = heating ? ws.shh : ws.scc;
+  const sxy = heating ? ws.shy : ws.scy;
+  const valid = heating ? ws.validH : ws.validC;
+  const wnz = ws.nonZeroWeight;
   m.fill(0);
   sxx.fill(0);
   sxy.fill(0);
+  wnz.fill(0);
   for (let i = 0; i < n; i++) {
+    const lo = heating ? t.heatingFrom[i]! : 0;
+    const hi = heating ? BASE_COUNT - 1 : t.coolingTo[i]!;
+    if (lo > hi) continue;
     const wi = w[i]!;
+    // the non-zero range starts (heating) or ends (cooling) here: mark for a running sum below
+    wnz[heating ? lo : hi] = wnz[heating ? lo : hi]! + wi;
     const row = i * BASE_COUNT;
-    for (let k = 0; k < BASE_COUNT; k++) m[k] = m[k]! + wi * dd[row + k]!;
+    for (let k = lo; k <= hi; k++) m[k] = m[k]! + wi * dd[row + k]!;
   }
-  const W = ws.sumWeights;
+  if (heating) for (let k = 1; k < BASE_COUNT; k++) wnz[k] = wnz[k]! + wnz[k - 1]!;
+  else for (let k = BASE_COUNT - 2; k >= 0; k--) wnz[k] = wnz[k]! + wnz[k + 1]!;
   for (let k = 0; k < BASE_COUNT; k++) m[k] = m[k]! / W;
   for (let i = 0; i < n; i++) {
+    const lo = heating ? t.heatingFrom[i]! : 0;
+    const hi = heating ? BASE_COUNT - 1 : t.coolingTo[i]!;
     const wi = w[i]!;
     const wy = wi * yc[i]!;
     const row = i * BASE_COUNT;
-    for (let k = 0; k < BASE_COUNT; k++) {
-      const d = dd[row + k]! - m[k]!;
+    for (let k = lo; k <= hi; k++) {
+      const x = dd[row + k]!;
+      const d = x - m[k]!;
       sxx[k] = sxx[k]! + wi * d * d;
-      sxy[k] = sxy[k]! + wy * d;
+      sxy[k] = sxy[k]! + wy * x;
     }
   }
   let any = false;
   for (let k = 0; k < BASE_COUNT; k++) {
-    const raw = sxx[k]! + W * m[k]! * m[k]!;
+    const mk = m[k]!;
+    sxx[k] = sxx[k]! + mk * mk * (W - wnz[k]!);
+    const raw = sxx[k]! + W * mk * mk;
     const ok = raw > 0 && sxx[k]! > CONSTANT_TOLERANCE * raw;
     valid[k] = ok ? 1 : 0;
     any ||= ok;
@@ -140,7 +163,6 @@ function searchOneSlope(ws: SearchWorkspace, best: ShapeBest, heating: boolean, 
     const beta = sxy[k]! / sxx[k]!;
     if (!(beta > 0)) continue;
     if (ws.meanY - beta * m[k]! < -muTol) continue;
-    best.qualified++;
     const ss = ws.ssTotal - beta * sxy[k]!;
     if (ss < bestSs - tieTol) {
       bestSs = ss;
@@ -157,11 +179,11 @@ function searchOneSlope(ws: SearchWorkspace, best: ShapeBest, heating: boolean, 
 function accumulateCross(t: PeriodTable, ws: SearchWorkspace): void {
   const cross = ws.cross;
   cross.fill(0);
-  const { hdd, cdd, days, minTempF, maxTempF } = t;
+  const { hdd, cdd, days, heatingFrom, coolingTo } = t;
   for (let i = 0; i < t.n; i++) {
-    // H_p(30 + k) > 0 iff some day is colder than 30 + k; C_p(30 + k) > 0 iff some day is warmer
-    const lo = Math.max(0, Math.floor(minTempF[i]! - 30) + 1);
-    const hi = Math.min(BASE_COUNT - 1, Math.ceil(maxTempF[i]! - 30) - 1);
+    // H_p(30 + k) > 0 iff k ≥ heatingFrom (a colder day exists); C_p(30 + k) > 0 iff k ≤ coolingTo
+    const lo = heatingFrom[i]!;
+    const hi = coolingTo[i]!;
     if (lo > hi) continue;
     const row = i * BASE_COUNT;
     const wi = days[i]!;
@@ -184,7 +206,6 @@ function searchTwoSlope(t: PeriodTable, ws: SearchWorkspace, best: ShapeBest, mu
   let bestH = -1;
   let bestC = -1;
   let evaluated = 0;
-  let qualified = 0;
   // τH < τC has 5 parameters and needs n ≥ 6; τH = τC has 4 and needs n ≥ 5
   const twoChangePoints = t.n >= 6;
   for (let kh = 0; kh < BASE_COUNT; kh++) {
@@ -203,24 +224,23 @@ function searchTwoSlope(t: PeriodTable, ws: SearchWorkspace, best: ShapeBest, mu
       if (!(det > COLLINEAR_TOLERANCE * a * d)) continue;
       evaluated++;
       const cy = scy[kc]!;
-      const nh = d * hy - b * cy; // βH·det
+      // slopes times det: βH·det = d·S_hy − b·S_cy, βC·det = a·S_cy − b·S_hy (det > 0)
+      const nh = d * hy - b * cy;
       if (!(nh > 0)) continue;
-      const nc = a * cy - b * hy; // βC·det
+      const nc = a * cy - b * hy;
       if (!(nc > 0)) continue;
-      const bh = nh / det;
-      const bc = nc / det;
-      if (meanY - bh * mh - bc * mC[kc]! < -muTol) continue;
-      qualified++;
-      const ss = sst - (bh * hy + bc * cy);
-      if (ss < bestSs - tieTol || (ss <= bestSs + tieTol && kh === kc && bestH !== bestC)) {
-        bestSs = ss;
-        bestH = kh;
-        bestC = kc;
-      }
+      // SS_res = SST − (nh·S_hy + nc·S_cy)/det: compare without dividing, then check the intercept
+      const gain = nh * hy + nc * cy;
+      const better = gain > (sst - bestSs + tieTol) * det;
+      const tiedFewer = !better && kh === kc && bestH !== bestC && gain >= (sst - bestSs - tieTol) * det;
+      if (!better && !tiedFewer) continue;
+      if (meanY * det - nh * mh - nc * mC[kc]! < -muTol * det) continue;
+      bestSs = sst - gain / det;
+      bestH = kh;
+      bestC = kc;
     }
   }
   best.evaluated = evaluated;
-  best.qualified = qualified;
   if (bestH >= 0) {
     best.found = true;
     best.heatingK = bestH;
@@ -252,7 +272,6 @@ function searchLinear(t: PeriodTable, ws: SearchWorkspace, best: ShapeBest): voi
     best.failure = 'constant-temperature';
     return;
   }
-  best.qualified = 1;
   best.found = true;
   best.ssResidual = Math.max(0, ws.ssTotal - (sxy * sxy) / sxx);
 }
@@ -294,8 +313,8 @@ export function searchCandidates(t: PeriodTable, mask: ShapeMask, ws: SearchWork
 
   const wantH = ws.heating.failure === null || ws.heatingCooling.failure === null;
   const wantC = ws.cooling.failure === null || ws.heatingCooling.failure === null;
-  const anyH = wantH && perBaseSums(t, t.hdd, ws, ws.mH, ws.shh, ws.shy, ws.validH);
-  const anyC = wantC && perBaseSums(t, t.cdd, ws, ws.mC, ws.scc, ws.scy, ws.validC);
+  const anyH = wantH && perBaseSums(t, true, ws);
+  const anyC = wantC && perBaseSums(t, false, ws);
   if (ws.heating.failure === null) {
     if (anyH) searchOneSlope(ws, ws.heating, true, muTol, tieTol);
     else ws.heating.failure = 'no-degree-day-variation';

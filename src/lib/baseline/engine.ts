@@ -44,12 +44,12 @@ export type ShapeOutcome =
       heatingBalanceF: number | null;
       coolingBalanceF: number | null;
       adjR2: number;
+      /** Non-degenerate candidates fitted on the grid. */
       candidatesEvaluated: number;
-      candidatesQualified: number;
       /** Full statistics; null when only the selected model's were requested. */
       model: FittedModel | null;
     }
-  | { ok: false; shape: Shape; reason: CandidateFailure | RegressionFailure; candidatesEvaluated: number; candidatesQualified: number };
+  | { ok: false; shape: Shape; reason: CandidateFailure | RegressionFailure; candidatesEvaluated: number };
 
 export interface PeriodRow {
   start: string;
@@ -163,10 +163,9 @@ export class BaselineEngine {
       const score = scores.find((s) => s.shape === shape);
       const b = bests.get(shape);
       const evaluated = shape === 'mean' ? (shapes.has('mean') ? 1 : 0) : (b?.evaluated ?? 0);
-      const qualified = shape === 'mean' ? evaluated : (b?.qualified ?? 0);
       if (score === undefined) {
         const reason: CandidateFailure = shape === 'mean' ? 'not-requested' : (b?.failure ?? 'not-requested');
-        outcomes[shape] = { ok: false, shape, reason, candidatesEvaluated: evaluated, candidatesQualified: qualified };
+        outcomes[shape] = { ok: false, shape, reason, candidatesEvaluated: evaluated };
         continue;
       }
       const model = fitted.get(shape) ?? null;
@@ -177,7 +176,6 @@ export class BaselineEngine {
         coolingBalanceF: score.coolingBalanceF,
         adjR2: model?.quality.adjR2 ?? score.adjR2,
         candidatesEvaluated: evaluated,
-        candidatesQualified: qualified,
         model,
       };
     }

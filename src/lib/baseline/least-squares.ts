@@ -58,70 +58,74 @@ export function weightedLeastSquares(
   if (k > 2) return { ok: false, reason: 'invalid-input' };
   if (n < k + 2) return { ok: false, reason: 'too-few-points' };
   const w = weights ?? null;
+  const x0 = k > 0 ? columns[0]! : null;
+  const x1 = k > 1 ? columns[1]! : null;
+  if ((x0 !== null && x0.length !== n) || (x1 !== null && x1.length !== n)) return { ok: false, reason: 'invalid-input' };
   let sw = 0;
   for (let i = 0; i < n; i++) {
     const wi = w === null ? 1 : w[i]!;
     if (!(wi >= 0) || !Number.isFinite(wi) || !Number.isFinite(y[i]!)) return { ok: false, reason: 'invalid-input' };
-    for (const c of columns) if (c.length !== n || !Number.isFinite(c[i]!)) return { ok: false, reason: 'invalid-input' };
+    if ((x0 !== null && !Number.isFinite(x0[i]!)) || (x1 !== null && !Number.isFinite(x1[i]!))) return { ok: false, reason: 'invalid-input' };
     sw += wi;
   }
   if (!(sw > 0)) return { ok: false, reason: 'zero-weight' };
 
   const my = weightedMean(y, w, sw);
-  const mx = columns.map((c) => weightedMean(c, w, sw));
-  // centred sums: s[a][b] = Σ w (xa − ma)(xb − mb), sy[a] = Σ w (xa − ma)(y − my)
-  const s = [
-    [0, 0],
-    [0, 0],
-  ];
-  const sy = [0, 0];
-  const raw = [0, 0];
+  const m0 = x0 === null ? 0 : weightedMean(x0, w, sw);
+  const m1 = x1 === null ? 0 : weightedMean(x1, w, sw);
+  // centred sums: s00 = Σ w (x0 − m0)², s01, s11; s0y = Σ w (x0 − m0)(y − ȳ), s1y; syy
+  let s00 = 0;
+  let s01 = 0;
+  let s11 = 0;
+  let s0y = 0;
+  let s1y = 0;
   let syy = 0;
+  let raw0 = 0;
+  let raw1 = 0;
   for (let i = 0; i < n; i++) {
     const wi = w === null ? 1 : w[i]!;
     const dy = y[i]! - my;
     syy += wi * dy * dy;
-    for (let a = 0; a < k; a++) {
-      const da = columns[a]![i]! - mx[a]!;
-      raw[a]! += wi * columns[a]![i]! * columns[a]![i]!;
-      sy[a]! += wi * da * dy;
-      for (let b = a; b < k; b++) s[a]![b]! += wi * da * (columns[b]![i]! - mx[b]!);
+    if (x0 !== null) {
+      const d0 = x0[i]! - m0;
+      raw0 += wi * x0[i]! * x0[i]!;
+      s00 += wi * d0 * d0;
+      s0y += wi * d0 * dy;
+      if (x1 !== null) {
+        const d1 = x1[i]! - m1;
+        raw1 += wi * x1[i]! * x1[i]!;
+        s11 += wi * d1 * d1;
+        s01 += wi * d0 * d1;
+        s1y += wi * d1 * dy;
+      }
     }
   }
-  for (let a = 0; a < k; a++) {
-    if (!(s[a]![a]! > CONSTANT_TOLERANCE * raw[a]!)) return { ok: false, reason: 'constant-x' };
+  if ((x0 !== null && !(s00 > CONSTANT_TOLERANCE * raw0)) || (x1 !== null && !(s11 > CONSTANT_TOLERANCE * raw1))) {
+    return { ok: false, reason: 'constant-x' };
   }
-  // inverse of the centred normal matrix
-  let inv: number[][];
-  if (k === 0) inv = [];
-  else if (k === 1) inv = [[1 / s[0]![0]!]];
-  else {
-    const a = s[0]![0]!;
-    const b = s[0]![1]!;
-    const d = s[1]![1]!;
-    const det = a * d - b * b;
-    if (!(det > COLLINEAR_TOLERANCE * a * d)) return { ok: false, reason: 'collinear' };
-    inv = [
-      [d / det, -b / det],
-      [-b / det, a / det],
-    ];
+  // inverse of the centred normal matrix [[s00, s01], [s01, s11]] (or its 1×1 / empty case)
+  let i00 = 0;
+  let i01 = 0;
+  let i11 = 0;
+  if (k === 1) i00 = 1 / s00;
+  else if (k === 2) {
+    const det = s00 * s11 - s01 * s01;
+    if (!(det > COLLINEAR_TOLERANCE * s00 * s11)) return { ok: false, reason: 'collinear' };
+    i00 = s11 / det;
+    i01 = -s01 / det;
+    i11 = s00 / det;
   }
-  const slopes: number[] = [];
-  for (let a = 0; a < k; a++) {
-    let v = 0;
-    for (let b = 0; b < k; b++) v += inv[a]![b]! * sy[b]!;
-    slopes.push(v);
-  }
-  let intercept = my;
-  for (let a = 0; a < k; a++) intercept -= slopes[a]! * mx[a]!;
+  const b0 = i00 * s0y + i01 * s1y;
+  const b1 = i01 * s0y + i11 * s1y;
+  const slopes = k === 0 ? [] : k === 1 ? [b0] : [b0, b1];
+  const intercept = my - b0 * m0 - b1 * m1;
 
   const fitted = new Float64Array(n);
   const residuals = new Float64Array(n);
   let sse = 0;
   for (let i = 0; i < n; i++) {
-    // predict from the centred form: ȳ + Σ b (x − m), which keeps residuals accurate
-    let f = my;
-    for (let a = 0; a < k; a++) f += slopes[a]! * (columns[a]![i]! - mx[a]!);
+    // predict from the centred form ȳ + Σ b (x − m), which keeps residuals accurate
+    const f = my + (x0 === null ? 0 : b0 * (x0[i]! - m0)) + (x1 === null ? 0 : b1 * (x1[i]! - m1));
     fitted[i] = f;
     const e = y[i]! - f;
     residuals[i] = e;
@@ -130,19 +134,22 @@ export function weightedLeastSquares(
   const df = n - k - 1;
   const sigma2 = sse / df;
   // Cov(b) = σ² S⁻¹; Var(b0) = σ² (1/W + mᵀ S⁻¹ m); Cov(b0, b) = −σ² S⁻¹ m
-  const covariance: number[][] = Array.from({ length: k + 1 }, () => new Array<number>(k + 1).fill(0));
-  let v00 = 1 / sw;
-  for (let a = 0; a < k; a++) {
-    let sm = 0;
-    for (let b = 0; b < k; b++) {
-      covariance[a + 1]![b + 1] = sigma2 * inv[a]![b]!;
-      sm += inv[a]![b]! * mx[b]!;
-    }
-    v00 += mx[a]! * sm;
-    covariance[0]![a + 1] = -sigma2 * sm;
-    covariance[a + 1]![0] = -sigma2 * sm;
-  }
-  covariance[0]![0] = sigma2 * v00;
+  const g0 = i00 * m0 + i01 * m1;
+  const g1 = i01 * m0 + i11 * m1;
+  const v00 = sigma2 * (1 / sw + m0 * g0 + m1 * g1);
+  const covariance =
+    k === 0
+      ? [[v00]]
+      : k === 1
+        ? [
+            [v00, -sigma2 * g0],
+            [-sigma2 * g0, sigma2 * i00],
+          ]
+        : [
+            [v00, -sigma2 * g0, -sigma2 * g1],
+            [-sigma2 * g0, sigma2 * i00, sigma2 * i01],
+            [-sigma2 * g1, sigma2 * i01, sigma2 * i11],
+          ];
   return {
     ok: true,
     intercept,
