@@ -3,7 +3,7 @@
  * 0–1 scaled value, its weight and the points it adds, and plain-English sentences that explain
  * the rank, biggest contribution first.
  */
-import { fiscalYearOf } from './windows';
+import { formatNumber, formatPercent } from '../format';
 import type { NationalPeer } from './peers';
 import type { PriorityCandidate, PriorityScores } from './priority';
 import { EVALUATION_CYCLE_YEARS } from './priority';
@@ -40,22 +40,10 @@ export interface PriorityBreakdown {
   readonly explanation: readonly string[];
 }
 
-/**
- * Fixed-point number with thousands separators ("1,234,567.8"). toFixed rather than
- * Intl.NumberFormat: a full shortlist builds ~100,000 of these, and this is several times faster.
- */
-function fixed(x: number, digits = 0): string {
-  const s = Math.abs(x).toFixed(digits);
-  const dot = s.indexOf('.');
-  const int = dot < 0 ? s : s.slice(0, dot);
-  const frac = dot < 0 ? '' : s.slice(dot);
-  const grouped = int.replace(/\B(?=(\d{3})+(?!\d))/g, ',');
-  return (x < 0 && Number(s) !== 0 ? '-' : '') + grouped + frac;
-}
-
+/** "62 %", one decimal below 10 % (display convention of ../format.ts). */
 function pct(fraction: number): string {
-  const p = Math.abs(fraction) * 100;
-  return `${fixed(p, p < 10 ? 1 : 0)} %`;
+  const p = Math.abs(fraction);
+  return formatPercent(p, p < 0.1 ? 1 : 0);
 }
 
 /** "the median office building (CBECS 2018)"; says so when the comparison fell back. */
@@ -81,16 +69,16 @@ function sentence(
         return 'No weather-normalized EUI yet, so no excess over peers is counted.';
       const m = peer.row.median;
       const rel = m > 0 ? (c.euiNormalized - m) / m : 0;
-      const vs = `${fixed(c.euiNormalized, 1)} vs ${fixed(m, 1)} kBtu/ft²·yr`;
+      const vs = `${formatNumber(c.euiNormalized, 1)} vs ${formatNumber(m, 1)} kBtu/ft²·yr`;
       return rel > 0
-        ? `Uses ${pct(rel)} more energy per square foot than ${peerPhrase(peer)}: ${vs}, about ${fixed(raw)} kBtu a year above the median.`
+        ? `Uses ${pct(rel)} more energy per square foot than ${peerPhrase(peer)}: ${vs}, about ${formatNumber(raw)} kBtu a year above the median.`
         : `Uses ${pct(rel)} less energy per square foot than ${peerPhrase(peer)}: ${vs}, no excess.`;
     }
     case 'excessCost':
       if (c.pricePerKbtu === null)
         return 'No energy cost on its bills, so the excess cannot be priced.';
       if (raw === 0) return 'No excess energy to price.';
-      return `At $${fixed(c.pricePerKbtu, 4)}/kBtu from its own bills, the excess costs about $${fixed(raw)} a year.`;
+      return `At $${c.pricePerKbtu.toFixed(4)}/kBtu from its own bills, the excess costs about $${formatNumber(raw)} a year.`;
     case 'yoyIncrease': {
       if (c.yoy === null || !(c.yoy.previous > 0))
         return 'Not enough history for a year-over-year comparison.';
@@ -104,16 +92,18 @@ function sentence(
       if (a === null) return 'No accepted baseline to test recent bills against.';
       if (a.beyond2Se === 0)
         return `None of the last ${a.recentPeriods} bills is more than 2 standard errors from the baseline.`;
-      const largest = a.largestSe != null ? ` (largest ${fixed(a.largestSe, 1)})` : '';
+      const largest = a.largestSe != null ? ` (largest ${formatNumber(a.largestSe, 1)})` : '';
       return `${a.beyond2Se} of the last ${a.recentPeriods} bills were more than 2 standard errors from the baseline${largest}.`;
     }
     case 'evaluationAge': {
       const cycle = `the evaluation cycle is ${EVALUATION_CYCLE_YEARS} years (EISA 2007 §432)`;
       if (c.lastEvaluated === null) return `No evaluation on record; ${cycle}.`;
-      const fy = fiscalYearOf(c.lastEvaluated);
+      // US federal fiscal year (31 U.S.C. 1102): October to December count toward the next year.
+      const fy =
+        Number(c.lastEvaluated.slice(0, 4)) + (Number(c.lastEvaluated.slice(5, 7)) >= 10 ? 1 : 0);
       return raw >= 1
-        ? `Not evaluated since FY${fy} (${fixed(raw, 1)} years ago); ${cycle}.`
-        : `Evaluated in FY${fy}, ${fixed(raw, 1)} years before ${asOf}.`;
+        ? `Not evaluated since FY${fy} (${formatNumber(raw, 1)} years ago); ${cycle}.`
+        : `Evaluated in FY${fy}, ${formatNumber(raw, 1)} years before ${asOf}.`;
     }
     case 'manualFlag':
       if (!c.manualFlag) return 'Not flagged by a manager.';
@@ -139,8 +129,60 @@ function rawOrNull(term: PriorityTerm, c: PriorityCandidate, raw: number): numbe
   }
 }
 
+/** The six term rows of candidate `i`: raw value and unit, scaled value, weight and points. */
+export function priorityTerms(
+  candidates: readonly PriorityCandidate[],
+  scores: PriorityScores,
+  i: number,
+): TermBreakdown[] {
+  const c = candidates[i]!;
+  const out = new Array<TermBreakdown>(PRIORITY_TERMS.length);
+  for (let t = 0; t < PRIORITY_TERMS.length; t++) {
+    const term = PRIORITY_TERMS[t]!;
+    const scaled = scores.scaled[t]![i]!;
+    const weight = scores.weights[t]!;
+    out[t] = {
+      term,
+      label: PRIORITY_TERM_LABELS[term],
+      raw: rawOrNull(term, c, scores.raw[t]![i]!),
+      unit: TERM_UNITS[term],
+      scaled,
+      weight,
+      points: 100 * weight * scaled,
+    };
+  }
+  return out;
+}
+
+/** Sentences explaining candidate `i`'s score, the largest contribution first. */
+export function priorityExplanation(
+  candidates: readonly PriorityCandidate[],
+  scores: PriorityScores,
+  i: number,
+  asOf: string,
+): string[] {
+  const c = candidates[i]!;
+  const peer = scores.peers[i]!;
+  const T = PRIORITY_TERMS.length;
+  // Insertion sort of the six term indices by points, descending; ties keep the term order.
+  // (No closures: this runs once per listed building.)
+  const order: number[] = [];
+  for (let t = 0; t < T; t++) {
+    const p = scores.weights[t]! * scores.scaled[t]![i]!;
+    let k = order.length;
+    while (k > 0 && scores.weights[order[k - 1]!]! * scores.scaled[order[k - 1]!]![i]! < p) k--;
+    order.splice(k, 0, t);
+  }
+  const out = new Array<string>(T);
+  for (let r = 0; r < T; r++) {
+    const t = order[r]!;
+    out[r] = sentence(PRIORITY_TERMS[t]!, c, scores.raw[t]![i]!, peer, asOf);
+  }
+  return out;
+}
+
 /**
- * Breakdown of candidate `i` of a scoring.
+ * Breakdown of candidate `i` of a scoring: its term rows and the sentences that explain them.
  * @example priorityBreakdown(cands, scores, i, '2025-06-30').explanation[0]
  */
 export function priorityBreakdown(
@@ -149,27 +191,8 @@ export function priorityBreakdown(
   i: number,
   asOf: string,
 ): PriorityBreakdown {
-  const c = candidates[i]!;
-  const peer = scores.peers[i]!;
-  const terms: TermBreakdown[] = PRIORITY_TERMS.map((term, t) => {
-    const raw = scores.raw[t]![i]!;
-    const scaled = scores.scaled[t]![i]!;
-    const weight = scores.weights[t]!;
-    return {
-      term,
-      label: PRIORITY_TERM_LABELS[term],
-      raw: rawOrNull(term, c, raw),
-      unit: TERM_UNITS[term],
-      scaled,
-      weight,
-      points: 100 * weight * scaled,
-    };
-  });
-  const byPoints = terms
-    .map((tb, t) => ({ tb, t }))
-    .sort((a, b) => b.tb.points - a.tb.points || a.t - b.t);
-  const explanation = byPoints.map(({ tb, t }) =>
-    sentence(tb.term, c, scores.raw[t]![i]!, peer, asOf),
-  );
-  return { terms, explanation };
+  return {
+    terms: priorityTerms(candidates, scores, i),
+    explanation: priorityExplanation(candidates, scores, i, asOf),
+  };
 }

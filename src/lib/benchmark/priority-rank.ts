@@ -19,12 +19,17 @@ export interface RankedBuilding<C extends PriorityCandidate = PriorityCandidate>
   /** Excess over the peer median, kBtu/yr, and its cost, $/yr (null when unpriced). */
   readonly excessKbtu: number;
   readonly excessCost: number | null;
-  /** Null for rows beyond `explainTop`. */
+  /** Term rows and sentences; null beyond the top `explainTop` rows. */
   readonly breakdown: PriorityBreakdown | null;
 }
 
 export interface RankOptions extends PriorityOptions {
-  /** Build breakdowns for this many top rows only; default all. */
+  /**
+   * Build breakdowns for this many top rows only (default all). A breakdown is a dozen objects and
+   * six sentences kept alive with the result: for 10,000 rows they cost far more than the ranking
+   * itself, so a page of the shortlist should ask for the rows it shows
+   * (priorityBreakdown gives any other building's on demand).
+   */
   readonly explainTop?: number;
 }
 

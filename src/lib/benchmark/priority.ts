@@ -5,6 +5,7 @@
  * 1. excessEnergy  max(0, EUI_norm − peer median) × area, kBtu/yr → robust cap (./priority-scale.ts)
  * 2. excessCost    excessEnergy × blended $/kBtu from the building's own bills, $/yr → robust cap
  * 3. yoyIncrease   max(0, (normalized use now − a year before) / a year before), fraction → cap
+ *                  (0 without a positive previous year)
  * 4. anomalies     count of recent bill periods whose residual exceeds 2 standard errors → cap
  * 5. evaluationAge years since the last comprehensive evaluation → min(1, years / 4); never → 1
  *                  (four-year cycle: 42 U.S.C. 8253(f)(3), added by EISA 2007 §432)
@@ -12,7 +13,7 @@
  * score = 100 · Σ wᵢ·sᵢ / Σ wᵢ. Order: score desc, then excess kBtu desc, then building number
  * ascending (numeric-aware, 'en' collation), then building id: a total order, so equal inputs
  * always rank the same way. Work is O(n log n) with typed arrays; no per-term objects are made
- * here (./priority-explain.ts builds the breakdown).
+ * here (./priority-breakdown.ts builds the breakdown).
  */
 import { z } from 'zod';
 import { useTypeSchema } from '../domain';
@@ -80,8 +81,26 @@ export interface PriorityScores {
 
 const COLLATOR = new Intl.Collator('en', { numeric: true });
 
-function daysBetween(from: string, to: string): number {
-  return (Date.parse(`${to}T00:00:00Z`) - Date.parse(`${from}T00:00:00Z`)) / 86_400_000;
+/**
+ * Day number of a 'YYYY-MM-DD' date (days since 1970-01-01, proleptic Gregorian), by integer
+ * arithmetic: the days-from-civil algorithm of H. Hinnant, "chrono-Compatible Low-Level Date
+ * Algorithms". The date was validated by the schema at the boundary.
+ */
+function dayNumber(iso: string): number {
+  // No helper closure here: this runs once per candidate.
+  let y =
+    (iso.charCodeAt(0) - 48) * 1000 +
+    (iso.charCodeAt(1) - 48) * 100 +
+    (iso.charCodeAt(2) - 48) * 10 +
+    (iso.charCodeAt(3) - 48);
+  const m = (iso.charCodeAt(5) - 48) * 10 + (iso.charCodeAt(6) - 48);
+  const d = (iso.charCodeAt(8) - 48) * 10 + (iso.charCodeAt(9) - 48);
+  y -= m <= 2 ? 1 : 0;
+  const era = Math.floor(y / 400);
+  const yoe = y - era * 400;
+  const doy = Math.floor((153 * (m + (m > 2 ? -3 : 9)) + 2) / 5) + d - 1;
+  const doe = yoe * 365 + Math.floor(yoe / 4) - Math.floor(yoe / 100) + doy;
+  return era * 146_097 + doe - 719_468;
 }
 
 /**
@@ -105,16 +124,20 @@ export function scorePriority(
     Float64Array,
     Float64Array,
   ];
-  const peerCache = new Map<string, NationalPeer>();
+  // Peers by use type, plus a cache for the rare overrides: no allocation on the common path.
+  const byUseType = new Map<string, NationalPeer>();
+  const byOverride = new Map<string, NationalPeer>();
   const peers: NationalPeer[] = new Array<NationalPeer>(n);
+  const asOfDay = dayNumber(options.asOf);
 
   for (let i = 0; i < n; i++) {
     const c = candidates[i]!;
-    const key = `${c.useType}|${c.cbecsOverride ?? ''}`;
-    let peer = peerCache.get(key);
+    const cache = c.cbecsOverride ? byOverride : byUseType;
+    const key = c.cbecsOverride ? `${c.useType}|${c.cbecsOverride}` : c.useType;
+    let peer = cache.get(key);
     if (!peer) {
       peer = nationalPeer(c.useType, c.cbecsOverride);
-      peerCache.set(key, peer);
+      cache.set(key, peer);
     }
     peers[i] = peer;
     const excess =
@@ -129,7 +152,7 @@ export function scorePriority(
     rEval[i] =
       c.lastEvaluated === null
         ? Infinity
-        : Math.max(0, daysBetween(c.lastEvaluated, options.asOf)) / DAYS_PER_YEAR;
+        : Math.max(0, asOfDay - dayNumber(c.lastEvaluated)) / DAYS_PER_YEAR;
     rFlag[i] = c.manualFlag ? 1 : 0;
   }
 
@@ -151,9 +174,10 @@ export function scorePriority(
     score[i] = 100 * s;
   }
 
-  const order = new Int32Array(n);
-  for (let i = 0; i < n; i++) order[i] = i;
-  order.sort((a, b) => {
+  // A plain array sorts with a comparator faster than a typed array in V8; copied afterwards.
+  const idx = new Array<number>(n);
+  for (let i = 0; i < n; i++) idx[i] = i;
+  idx.sort((a, b) => {
     const ds = score[b]! - score[a]!;
     if (ds !== 0) return ds;
     const de = rExcess[b]! - rExcess[a]!;
@@ -164,6 +188,7 @@ export function scorePriority(
     if (dn !== 0) return dn;
     return ca.buildingId < cb.buildingId ? -1 : ca.buildingId > cb.buildingId ? 1 : a - b;
   });
+  const order = Int32Array.from(idx);
   const rank = new Int32Array(n);
   for (let r = 0; r < n; r++) rank[order[r]!] = r + 1;
 

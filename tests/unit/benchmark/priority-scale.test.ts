@@ -1,4 +1,5 @@
 import fc from 'fast-check';
+import { quantile } from 'simple-statistics';
 import { describe, expect, it } from 'vitest';
 import { scaleCap, scaleTerm, scaleValue } from '../../../src/lib/benchmark/priority-scale';
 
@@ -16,6 +17,23 @@ describe('scaleCap', () => {
     // positives 1, 2, 3, 4, 100; median (p = 0.5) = 3
     expect(scaleCap(raw, 0.5)).toBe(3);
     expect(scaleCap(Float64Array.of(0, -1, 0), 0.95)).toBe(0);
+  });
+
+  it('equals simple-statistics quantile (type 7) of the positive values (property)', () => {
+    // Reference library: simple-statistics quantile, linear interpolation as R type 7
+    fc.assert(
+      fc.property(
+        fc.array(fc.double({ min: -10, max: 1e6, noNaN: true }), { maxLength: 300 }),
+        fc.double({ min: 0.001, max: 1, noNaN: true }),
+        (values, p) => {
+          const positives = values.filter((v) => v > 0);
+          const cap = scaleCap(Float64Array.from(values), p);
+          if (positives.length === 0) expect(cap).toBe(0);
+          else expect(cap).toBeCloseTo(quantile(positives, p), 6);
+        },
+      ),
+      { numRuns: 500 },
+    );
   });
 
   it('rejects a percentile outside (0, 1]', () => {

@@ -310,9 +310,18 @@ describe('audit priority: breakdown', () => {
   });
 
   it('orders the sentences by contribution and quotes the manager’s reason', () => {
+    // Hand computed for 105 with the default weights (caps: type-7 p95 of the positive values):
+    // yoy 0.20 ≥ cap 0.19 → 1 × 15 = 15 points; evaluation 4.75 y ≥ 4 → 1 × 15 = 15;
+    // flag 1 × 10 = 10; excess 536,800 / 1,192,160 × 30 ≈ 13.5; cost 21,472 / 31,414.4 × 20 ≈ 13.7;
+    // anomalies 4 ≥ cap 3.8 → 10. Ties keep the term order, so the rise in use comes first.
     const b = get('105').breakdown!;
-    const top = [...b.terms].sort((x, y) => y.points - x.points)[0]!;
-    expect(top.points).toBeGreaterThan(0);
+    const points = Object.fromEntries(b.terms.map((t) => [t.term, t.points]));
+    expect(points['yoyIncrease']).toBeCloseTo(15, 9);
+    expect(points['evaluationAge']).toBeCloseTo(15, 9);
+    expect(points['excessEnergy']).toBeCloseTo((536_800 / 1_192_160) * 30, 9);
+    expect(points['excessCost']).toBeCloseTo((21_472 / 31_414.4) * 20, 9);
+    expect(b.explanation[0]).toBe('Weather-normalized use rose 20 % over the previous year.');
+    expect(b.explanation[1]).toMatch(/^Not evaluated since FY2021 \(4\.7 years ago\)/);
     expect(b.explanation).toContain('Flagged by a manager: Kitchen hoods run all night.');
   });
 
@@ -320,6 +329,15 @@ describe('audit priority: breakdown', () => {
     const r = rankPriority(fixture, DEFAULT_PRIORITY_WEIGHTS, { asOf, explainTop: 3 });
     expect(r.filter((x) => x.breakdown !== null)).toHaveLength(3);
     expect(r[3]!.breakdown).toBeNull();
+    expect(r[3]!.score).toBeGreaterThan(0);
+  });
+
+  it('counts evaluation age in calendar days across leap years', () => {
+    // Reference: JavaScript Date.UTC day arithmetic (ECMA-262 proleptic Gregorian calendar)
+    const old = { ...fixture[0]!, lastEvaluated: '1999-12-31' };
+    const s = scorePriority([old], DEFAULT_PRIORITY_WEIGHTS, { asOf: '2025-06-30' });
+    const days = (Date.UTC(2025, 5, 30) - Date.UTC(1999, 11, 31)) / 86_400_000;
+    expect(s.raw[PRIORITY_TERMS.indexOf('evaluationAge')]![0]).toBeCloseTo(days / 365.25, 12);
   });
 });
 
