@@ -10,7 +10,7 @@
  * and numbers go through hand-written scanners (no regular expressions, no Date objects) and a
  * clean row allocates only its result.
  */
-import type { Commodity, Unit } from '../domain';
+import { type Commodity, COMMODITY_UNITS, type Unit } from '../domain';
 import type { ResolvedBillMapping } from './bill-csv-mapping';
 import { type DateCellFailure, DEFAULT_TWO_DIGIT_YEAR_PIVOT, parseDateCell } from './cell-date';
 import { type DecimalMark, parseNumberCell } from './cell-number';
@@ -22,7 +22,7 @@ export interface MeterInfo {
   commodity?: Commodity | undefined;
   /** Unit used when a row states none. */
   defaultUnit?: Unit | undefined;
-  /** Units the meter's commodity may be billed in; a row in another unit is refused. */
+  /** Units the meter may be billed in; by default those of its commodity (COMMODITY_UNITS). */
   units?: readonly Unit[] | undefined;
 }
 
@@ -176,9 +176,10 @@ export function validateBillRow(
       problems = add(problems, line, header.unit, 'missing-unit', `Unit is blank and meter ${quoteValue(meterCode)} has no default unit.`);
     }
   }
-  if (unit !== undefined && meter?.units !== undefined && !meter.units.includes(unit)) {
+  const allowed = meter?.units ?? (meter?.commodity === undefined ? undefined : COMMODITY_UNITS[meter.commodity]);
+  if (unit !== undefined && allowed !== undefined && !allowed.includes(unit)) {
     problems = add(problems, line, header.unit, 'unit-not-valid-for-meter',
-      `Unit ${unit} does not fit meter ${quoteValue(meterCode)}, which is billed in ${meter.units.join(', ')}.`);
+      `Unit ${unit} does not fit meter ${quoteValue(meterCode)}, which is billed in ${allowed.join(', ')}.`);
   }
 
   let cost: number | undefined;

@@ -21,6 +21,7 @@ const m: ResolvedBillMapping = resolved.mapping;
 const meters = new Map<string, MeterInfo>([
   ['E-1', { commodity: 'electricity', defaultUnit: 'kWh', units: ['kWh', 'MWh'] }],
   ['G-1', { commodity: 'natural_gas', units: ['therm', 'ccf'] }],
+  ['W-1', { commodity: 'water', defaultUnit: 'kgal' }],
 ]);
 const ctx: BillRowContext = { decimalMark: 'point', meters, today: '2025-06-30' };
 
@@ -55,6 +56,9 @@ describe('validateBillRow', () => {
     expect(codes(['Z-9', '2024-01-01', '2024-01-31', '5', 'kWh', '', '', ''])).toEqual(['Meter:unknown-meter:error']);
     expect(codes(['G-1', '2024-01-01', '2024-01-31', '5', 'kWh', '', '', ''])).toEqual(['Unit:unit-not-valid-for-meter:error']);
     expect(codes(['E-1', '2024-01-01', '2024-01-31', '5', 'kW', '', '', ''])).toEqual(['Unit:demand-unit-as-quantity:error']);
+    // Without a unit list the meter's commodity decides (the shared COMMODITY_UNITS table).
+    expect(codes(['W-1', '2024-01-01', '2024-01-31', '5', 'kWh', '', '', ''])).toEqual(['Unit:unit-not-valid-for-meter:error']);
+    expect(codes(['W-1', '2024-01-01', '2024-01-31', '5', 'HCF', '', '', ''])).toEqual([]);
   });
 
   it('refuses reversed periods and periods ending after today', () => {
