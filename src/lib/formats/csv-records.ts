@@ -82,7 +82,8 @@ export class CsvRecordReader {
   private nextLine = 1;
   private lineMark = '\n';
   private headerSeen = false;
-  private started = false;
+  /** True when the caller hands over decoded text, which is then sniffed as text. */
+  private textInput = false;
 
   constructor(
     private readonly handler: CsvRecordHandler,
@@ -97,15 +98,11 @@ export class CsvRecordReader {
       const mb = Math.round((this.options.maxBytes ?? DEFAULT_MAX_BYTES) / 1048576);
       return this.fail(fileFailure('too-large', `The file is larger than the ${mb} MB limit.`));
     }
+    if (chunk.length === 0) return null;
     if (typeof chunk === 'string') {
-      if (!this.started) {
-        this.started = true;
-        const sniffed = sniffText(chunk);
-        if (sniffed !== null) return this.fail(sniffed);
-      }
+      if (this.decoder === null && this.headLength === 0) this.textInput = true;
       this.feedText(chunk, false);
     } else if (this.decoder === null) {
-      this.started = true;
       this.headBytes.push(chunk);
       this.headLength += chunk.length;
       if (this.headLength >= SNIFF_BYTES) this.startDecoding();
@@ -187,6 +184,13 @@ export class CsvRecordReader {
       let sample = this.pendingText;
       this.pendingText = '';
       if (sample.charCodeAt(0) === 0xfeff) sample = sample.slice(1);
+      if (this.textInput && sample !== '') {
+        const sniffed = sniffText(sample);
+        if (sniffed !== null) {
+          this.fail(sniffed);
+          return;
+        }
+      }
       this.dialect = {
         delimiter: this.options.delimiter ?? detectDelimiter(sample, final),
         newline: detectNewline(sample),

@@ -53,6 +53,11 @@ describe('file-level refusals', () => {
     expect(await reasonOf(enc.encode('<?xml version="1.0"?><feed/>'))).toBe('not-csv');
     expect(await reasonOf(new Uint8Array([0x1f, 0x8b, 8, 0]))).toBe('not-csv');
     expect(await reasonOf('%PDF-1.4 as text')).toBe('not-csv');
+    async function* textPieces(): AsyncGenerator<string> {
+      yield '%';
+      yield 'PDF-1.4 split into text chunks';
+    }
+    expect(await parseBillCsvStream(textPieces(), { mapping })).toMatchObject({ ok: false, reason: 'not-csv' });
   });
 
   it('refuses UTF-16 without a byte order mark but reads it with one', async () => {
