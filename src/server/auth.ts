@@ -41,6 +41,8 @@ const roles = Object.fromEntries(
 function build(db: Db) {
   return betterAuth({
     appName: 'Plumbline',
+    // Failed sign-ins are recorded in the activity log; better-auth's own warnings would only repeat them.
+    logger: { level: 'error' },
     baseURL: appBaseUrl(),
     secret: process.env.BETTER_AUTH_SECRET,
     trustedOrigins: trustedOrigins(),
