@@ -1,23 +1,26 @@
 /**
- * `plumbline fit --bills <csv> --weather <csv> [--json] [--workers N]`
+ * `plumbline fit --bills <csv> --weather <csv> [--json] [--workers N] [--shapes a,b,...]`
  *
  * Fits a weather-normalized baseline to every series of a bills file, without the database.
  * Bills CSV: `series,period_start,period_end,quantity` (ISO dates, both inclusive).
  * Weather CSV: `DATE,TMAX,TMIN` in °F (one station; other columns ignored; empty = missing).
- * NAC uses the normal year of the weather file's complete calendar years.
+ * NAC uses the normal year of the weather file's complete calendar years. `--shapes` restricts the
+ * model shapes for every series (e.g. `mean,heating,linear` for a heating fuel); default all.
  * Exit codes: 0 done (series that cannot be fitted carry a reason), 2 usage or input error.
  */
 import { readFile } from 'node:fs/promises';
 import { availableParallelism } from 'node:os';
 import Papa from 'papaparse';
+import { z } from 'zod';
 import { isoDateToDay } from '../../lib/baseline/calendar-days';
 import { dailyTemperaturesFromRows, type DailyTemperatureRow } from '../../lib/baseline/daily-temperatures';
 import { BaselineEngine, fitOptionsSchema } from '../../lib/baseline/engine';
+import { SHAPES, shapeSchema, type Shape } from '../../lib/baseline/grid';
 import { normalYearFromTable, normalYearTable } from '../../lib/baseline/normal-year';
 import { summarizeFit, type SeriesSummary } from '../../lib/baseline/series-summary';
 import { FitPool, type PoolSeries } from '../../server/fit-pool';
 
-const USAGE = 'usage: plumbline fit --bills <bills.csv> --weather <weather.csv> [--json] [--workers N]';
+const USAGE = 'usage: plumbline fit --bills <bills.csv> --weather <weather.csv> [--json] [--workers N] [--shapes mean,heating,...]';
 /** Below this many series a pool costs more to start than it saves. */
 const POOL_THRESHOLD = 200;
 
@@ -28,6 +31,7 @@ interface Args {
   weather: string;
   json: boolean;
   workers: number | null;
+  shapes: Shape[] | null;
 }
 
 function parseArgs(argv: string[]): Args {
@@ -35,6 +39,7 @@ function parseArgs(argv: string[]): Args {
   let weather: string | null = null;
   let json = false;
   let workers: number | null = null;
+  let shapes: Shape[] | null = null;
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i]!;
     const value = (): string => {
@@ -49,10 +54,15 @@ function parseArgs(argv: string[]): Args {
       const v = value();
       workers = Number(v);
       if (!Number.isInteger(workers) || workers < 0) throw new InputError(`--workers must be a whole number ≥ 0, got '${v}'`);
+    } else if (a === '--shapes') {
+      const v = value();
+      const parsed = z.array(shapeSchema).min(1).safeParse(v.split(',').map((x) => x.trim()));
+      if (!parsed.success) throw new InputError(`--shapes takes a comma list of ${SHAPES.join(', ')}; got '${v}'`);
+      shapes = parsed.data;
     } else throw new InputError(`unknown argument '${a}'\n${USAGE}`);
   }
   if (bills === null || weather === null) throw new InputError(`--bills and --weather are required\n${USAGE}`);
-  return { bills, weather, json, workers };
+  return { bills, weather, json, workers, shapes };
 }
 
 async function readCsv(path: string, what: string, required: string[]): Promise<{ rows: Record<string, string>[]; column: Record<string, string> }> {
@@ -164,11 +174,11 @@ function writeJson(out: NodeJS.WritableStream, summaries: SeriesSummary[]): void
   out.write('] }\n');
 }
 
-async function fitAll(series: PoolSeries[], weatherRows: DailyTemperatureRow[], workers: number | null): Promise<SeriesSummary[]> {
+async function fitAll(series: PoolSeries[], weatherRows: DailyTemperatureRow[], workers: number | null, shapes: Shape[] | null): Promise<SeriesSummary[]> {
   const temps = dailyTemperaturesFromRows(weatherRows);
   if (temps === null) throw new InputError('the weather file has no usable dates');
   const usePool = workers === null ? series.length >= POOL_THRESHOLD : workers > 0;
-  const fit = { statistics: 'selected', includePeriods: false } as const;
+  const fit = { statistics: 'selected', includePeriods: false, ...(shapes === null ? {} : { shapes }) } as const;
   if (!usePool) {
     const engine = new BaselineEngine();
     const options = fitOptionsSchema.parse(fit);
@@ -198,7 +208,7 @@ export async function fitCommand(argv: string[], out: NodeJS.WritableStream, err
   try {
     const args = parseArgs(argv);
     const [series, weather] = await Promise.all([readBills(args.bills), readWeather(args.weather)]);
-    const summaries = await fitAll(series, weather, args.workers);
+    const summaries = await fitAll(series, weather, args.workers, args.shapes);
     if (args.json) writeJson(out, summaries);
     else writeTable(out, summaries);
     return 0;

@@ -124,6 +124,7 @@ export class BaselineEngine {
     searchCandidates(t, { heating: shapes.has('heating'), cooling: shapes.has('cooling'), heatingCooling: shapes.has('heating-cooling'), linear: shapes.has('linear') }, ws);
     let sumWy2 = 0;
     for (let i = 0; i < t.n; i++) sumWy2 += t.days[i]! * t.usePerDay[i]! * t.usePerDay[i]!;
+    if (!Number.isFinite(ws.ssTotal) || !Number.isFinite(sumWy2)) return fail('invalid-input', 'use per day too large to fit in double precision');
     if (!(ws.ssTotal > ZERO_VARIANCE_TOLERANCE * sumWy2)) return fail('zero-variance', 'use per day is the same in every period');
 
     const n = t.n;

@@ -68,3 +68,53 @@ export function allNumbers(value: unknown, out: number[] = []): number[] {
   else if (value !== null && typeof value === 'object') for (const v of Object.values(value)) allNumbers(v, out);
   return out;
 }
+
+/** Small seeded generator (LCG) so tests are reproducible. */
+export function seeded(seed: number): { next: () => number; gaussian: () => number } {
+  let s = seed >>> 0;
+  const next = (): number => {
+    s = (Math.imul(s, 1_664_525) + 1_013_904_223) >>> 0;
+    return s / 4_294_967_296;
+  };
+  const gaussian = (): number => Math.sqrt(-2 * Math.log(next() + 1e-12)) * Math.cos(2 * Math.PI * next());
+  return { next, gaussian };
+}
+
+export interface SyntheticLaw {
+  base: number;
+  heat: number;
+  tauH: number;
+  cool: number;
+  tauC: number;
+  /** Relative noise of each bill. */
+  noise: number;
+}
+
+/**
+ * Daily weather (seasonal + AR(1) noise, 0.5 °F steps) and bills of 26–34 days whose use follows
+ * `base + heat·max(0, τH − T) + cool·max(0, T − τC)` per day, times (1 + noise·N(0,1)) per bill.
+ */
+export function syntheticSeries(law: SyntheticLaw, seed: number, bills = 36): { bills: BillArrays; temps: DailyTemperatures } {
+  const r = seeded(seed);
+  const days = bills * 34 + 60;
+  const mean = new Float64Array(days);
+  let ar = 0;
+  for (let d = 0; d < days; d++) {
+    ar = 0.7 * ar + 5 * r.gaussian();
+    mean[d] = Math.round(2 * (55 + 22 * Math.sin((2 * Math.PI * (d - 105)) / 365.25) + ar)) / 2;
+  }
+  const startDay = new Int32Array(bills);
+  const endDay = new Int32Array(bills);
+  const quantity = new Float64Array(bills);
+  let d = Math.floor(r.next() * 30);
+  for (let b = 0; b < bills; b++) {
+    const len = 26 + Math.floor(r.next() * 9);
+    startDay[b] = DAY0 + d;
+    endDay[b] = DAY0 + d + len - 1;
+    let q = 0;
+    for (let j = d; j < d + len; j++) q += law.base + law.heat * Math.max(0, law.tauH - mean[j]!) + law.cool * Math.max(0, mean[j]! - law.tauC);
+    quantity[b] = q * (1 + law.noise * r.gaussian());
+    d += len;
+  }
+  return { bills: { startDay, endDay, quantity }, temps: packDailyMeans(DAY0, mean) };
+}
