@@ -130,6 +130,8 @@ export const bill = pgTable(
     estimated: boolean('estimated').notNull().default(false),
     /** The import that last wrote this row (null for rows entered by hand or by the demo). */
     importId: uuid('import_id'),
+    /** The import that created this row: undoing that import removes it. */
+    createdImportId: uuid('created_import_id'),
     createdAt: created(),
     updatedAt: updated(),
   },
@@ -137,6 +139,7 @@ export const bill = pgTable(
     uniqueIndex('bill_meter_period_uq').on(t.meterId, t.periodStart, t.periodEnd),
     index('bill_installation_idx').on(t.installationId),
     index('bill_import_idx').on(t.importId),
+    index('bill_created_import_idx').on(t.createdImportId),
   ],
 );
 
