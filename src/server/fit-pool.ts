@@ -43,7 +43,7 @@ export interface FitManyOptions {
   normalYear?: boolean;
   /** `summary` (default) returns the compact summary; `full` also the whole fit result. */
   detail?: 'summary' | 'full';
-  /** Series per chunk (default 250). */
+  /** Series per chunk (default: about eight chunks per worker, 16–500; 250 for an open-ended iterable). */
   chunkSize?: number;
   onProgress?: (progress: { done: number; total: number | null }) => void;
 }
@@ -255,8 +255,10 @@ export class FitPool {
    */
   async *fitMany(series: Iterable<PoolSeries>, options: FitManyOptions = {}): AsyncGenerator<SeriesOutcome> {
     if (this.failure) throw this.failure;
-    const chunkSize = Math.max(1, Math.floor(options.chunkSize ?? 250));
     const total = Array.isArray(series) ? series.length : null;
+    // about eight chunks per worker balances the load; bounded so messages stay cheap
+    const automatic = total === null ? 250 : Math.min(500, Math.max(16, Math.ceil(total / (this.slots.length * 8))));
+    const chunkSize = Math.max(1, Math.floor(options.chunkSize ?? automatic));
     const maxInFlight = this.slots.length * 2;
     const it = series[Symbol.iterator]();
     const inFlight = new Map<number, Promise<{ first: number; reply: WorkerReply }>>();

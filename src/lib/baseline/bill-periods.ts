@@ -11,7 +11,7 @@
  */
 import { BASE_COUNT } from './grid';
 import type { DailyTemperatures } from './daily-temperatures';
-import { fillPeriodFromStation, stationDegreeDays, type PeriodFill } from './station-degree-days';
+import { addWeightedPeriodSums, fillPeriodFromStation, stationDegreeDays, temperatureDays, type PeriodFill } from './station-degree-days';
 
 /** Bills of one series as parallel arrays of day numbers (inclusive) and quantities. */
 export interface BillArrays {
@@ -51,12 +51,19 @@ export class PeriodTable {
   coolingTo = new Int32Array(0);
   hdd = new Float64Array(0);
   cdd = new Float64Array(0);
+  /** Σ_i days_i·HDD_p,i at each base (and cooling alike): the weighted means times W. */
+  readonly weightedHdd = new Float64Array(BASE_COUNT);
+  readonly weightedCdd = new Float64Array(BASE_COUNT);
   /** Periods whose start was moved one day later by the shared-read-date rule. */
   sharedReadDates = 0;
   /** Pairs of consecutive bills that overlap by more than a shared read date (kept, reported). */
   overlaps = 0;
   order = new Int32Array(0);
-  readonly fill: PeriodFill = { count: 0, meanF: 0, heatingFrom: 0, coolingTo: 0 };
+  /** Station rows bounding each period and days / days-with-temperature (for the weighted sums). */
+  rowFrom = new Int32Array(0);
+  rowTo = new Int32Array(0);
+  factor = new Float64Array(0);
+  readonly fill: PeriodFill = { count: 0, meanF: 0, heatingFrom: 0, coolingTo: 0, rowFrom: 0, rowTo: 0 };
 
   ensureCapacity(n: number): void {
     if (n <= this.capacity) return;
@@ -74,6 +81,9 @@ export class PeriodTable {
     this.hdd = new Float64Array(cap * BASE_COUNT);
     this.cdd = new Float64Array(cap * BASE_COUNT);
     this.order = new Int32Array(cap);
+    this.rowFrom = new Int32Array(cap);
+    this.rowTo = new Int32Array(cap);
+    this.factor = new Float64Array(cap);
   }
 }
 
@@ -104,6 +114,8 @@ export function buildPeriodTable(
   table.n = 0;
   table.sharedReadDates = 0;
   table.overlaps = 0;
+  table.weightedHdd.fill(0);
+  table.weightedCdd.fill(0);
   const dropped: DroppedPeriod[] = [];
   const station = stationDegreeDays(temps);
   const order = table.order;
@@ -135,13 +147,13 @@ export function buildPeriodTable(
       dropped.push({ index: idx, startDay: start0, endDay: end, reason: 'no-days-left', temperatureCoverage: null });
       continue;
     }
-    const i = table.n;
-    const s = fillPeriodFromStation(station, start, end, table.hdd, table.cdd, i * BASE_COUNT, table.fill);
-    const coverage = s.count / days;
-    if (coverage < minCoverage || s.count === 0) {
-      dropped.push({ index: idx, startDay: start0, endDay: end, reason: 'insufficient-temperature', temperatureCoverage: coverage });
+    const known = temperatureDays(station, start, end);
+    if (known / days < minCoverage || known === 0) {
+      dropped.push({ index: idx, startDay: start0, endDay: end, reason: 'insufficient-temperature', temperatureCoverage: known / days });
       continue;
     }
+    const i = table.n;
+    const s = fillPeriodFromStation(station, start, end, table.hdd, table.cdd, i * BASE_COUNT, table.fill);
     table.sourceIndex[i] = idx;
     table.startDay[i] = start;
     table.endDay[i] = end;
@@ -151,7 +163,11 @@ export function buildPeriodTable(
     table.meanTempF[i] = s.meanF;
     table.heatingFrom[i] = s.heatingFrom;
     table.coolingTo[i] = s.coolingTo;
+    table.rowFrom[i] = s.rowFrom;
+    table.rowTo[i] = s.rowTo;
+    table.factor[i] = days / s.count;
     table.n = i + 1;
   }
+  addWeightedPeriodSums(station, table.rowFrom, table.rowTo, table.factor, table.n, table.weightedHdd, table.weightedCdd);
   return dropped;
 }

@@ -93,9 +93,11 @@ function reset(b: ShapeBest, failure: CandidateFailure | null): void {
 
 /**
  * Centred per-base sums for every base of one degree-day matrix: means m, S_xx = Σ w (x − m)²
- * and S_xy = Σ w (x − m)(y − ȳ). Only the non-zero entries are visited (a period has no HDD at
- * bases below its coldest day, no CDD above its warmest); the zero entries contribute
- * m²·(W − W_nz) to S_xx exactly, and nothing to S_xy = Σ w x (y − ȳ) since Σ w (y − ȳ) = 0.
+ * and S_xy = Σ w (x − m)(y − ȳ). The exact weighted means come with the period table (summed
+ * while the degree days were filled), so one pass suffices. Only the non-zero entries are
+ * visited (a period has no HDD at bases below its coldest day, no CDD above its warmest); the
+ * zero entries contribute m²·(W − W_nz) to S_xx exactly, and nothing to S_xy = Σ w x (y − ȳ)
+ * since Σ w (y − ȳ) = 0.
  */
 function perBaseSums(t: PeriodTable, heating: boolean, ws: SearchWorkspace): boolean {
   const n = t.n;
@@ -103,12 +105,13 @@ function perBaseSums(t: PeriodTable, heating: boolean, ws: SearchWorkspace): boo
   const yc = ws.yc;
   const W = ws.sumWeights;
   const dd = heating ? t.hdd : t.cdd;
+  const weighted = heating ? t.weightedHdd : t.weightedCdd;
   const m = heating ? ws.mH : ws.mC;
   const sxx = heating ? ws.shh : ws.scc;
   const sxy = heating ? ws.shy : ws.scy;
   const valid = heating ? ws.validH : ws.validC;
   const wnz = ws.nonZeroWeight;
-  m.fill(0);
+  for (let k = 0; k < BASE_COUNT; k++) m[k] = weighted[k]! / W;
   sxx.fill(0);
   sxy.fill(0);
   wnz.fill(0);
@@ -117,19 +120,9 @@ function perBaseSums(t: PeriodTable, heating: boolean, ws: SearchWorkspace): boo
     const hi = heating ? BASE_COUNT - 1 : t.coolingTo[i]!;
     if (lo > hi) continue;
     const wi = w[i]!;
-    // the non-zero range starts (heating) or ends (cooling) here: mark for a running sum below
-    wnz[heating ? lo : hi] = wnz[heating ? lo : hi]! + wi;
-    const row = i * BASE_COUNT;
-    for (let k = lo; k <= hi; k++) m[k] = m[k]! + wi * dd[row + k]!;
-  }
-  if (heating) for (let k = 1; k < BASE_COUNT; k++) wnz[k] = wnz[k]! + wnz[k - 1]!;
-  else for (let k = BASE_COUNT - 2; k >= 0; k--) wnz[k] = wnz[k]! + wnz[k + 1]!;
-  for (let k = 0; k < BASE_COUNT; k++) m[k] = m[k]! / W;
-  for (let i = 0; i < n; i++) {
-    const lo = heating ? t.heatingFrom[i]! : 0;
-    const hi = heating ? BASE_COUNT - 1 : t.coolingTo[i]!;
-    const wi = w[i]!;
     const wy = wi * yc[i]!;
+    // the non-zero range starts (heating) or ends (cooling) here: marked for a running sum below
+    wnz[heating ? lo : hi] = wnz[heating ? lo : hi]! + wi;
     const row = i * BASE_COUNT;
     for (let k = lo; k <= hi; k++) {
       const x = dd[row + k]!;
@@ -138,6 +131,8 @@ function perBaseSums(t: PeriodTable, heating: boolean, ws: SearchWorkspace): boo
       sxy[k] = sxy[k]! + wy * x;
     }
   }
+  if (heating) for (let k = 1; k < BASE_COUNT; k++) wnz[k] = wnz[k]! + wnz[k - 1]!;
+  else for (let k = BASE_COUNT - 2; k >= 0; k--) wnz[k] = wnz[k]! + wnz[k + 1]!;
   let any = false;
   for (let k = 0; k < BASE_COUNT; k++) {
     const mk = m[k]!;
@@ -189,8 +184,17 @@ function accumulateCross(t: PeriodTable, ws: SearchWorkspace): void {
     const wi = days[i]!;
     for (let kh = lo; kh <= hi; kh++) {
       const hv = wi * hdd[row + kh]!;
-      const base = kh * BASE_COUNT;
-      for (let kc = kh; kc <= hi; kc++) cross[base + kc] = cross[base + kc]! + hv * cdd[row + kc]!;
+      // axpy over the row segment kc = kh..hi, unrolled by four (short rows; loop overhead matters)
+      let p = kh * BASE_COUNT + kh;
+      let q = row + kh;
+      const end = row + hi;
+      for (; q + 3 <= end; q += 4, p += 4) {
+        cross[p] = cross[p]! + hv * cdd[q]!;
+        cross[p + 1] = cross[p + 1]! + hv * cdd[q + 1]!;
+        cross[p + 2] = cross[p + 2]! + hv * cdd[q + 2]!;
+        cross[p + 3] = cross[p + 3]! + hv * cdd[q + 3]!;
+      }
+      for (; q <= end; q++, p++) cross[p] = cross[p]! + hv * cdd[q]!;
     }
   }
 }

@@ -71,6 +71,57 @@ export interface PeriodFill {
   heatingFrom: number;
   /** Last grid index with CDD > 0 (−1 when none). */
   coolingTo: number;
+  /** Station rows bounding the period: its degree days are row(rowTo) − row(rowFrom). */
+  rowFrom: number;
+  rowTo: number;
+}
+
+/**
+ * Add Σ_i f_i·(row(to_i) − row(from_i)) of the cumulative tables to `sumHdd`/`sumCdd` (per base),
+ * with f_i = days_i / (days with a temperature)_i, i.e. Σ_i days_i·HDD_p,i: the weighted means
+ * of a series times W. Periods are given in time order; where one ends at the row where the
+ * next starts with the same factor (consecutive complete periods), the two rows cancel exactly,
+ * so a run of back-to-back bills costs two rows instead of one per bill.
+ */
+export function addWeightedPeriodSums(
+  s: StationDegreeDays,
+  rowFrom: ArrayLike<number>,
+  rowTo: ArrayLike<number>,
+  factor: ArrayLike<number>,
+  n: number,
+  sumHdd: Float64Array,
+  sumCdd: Float64Array,
+): void {
+  const add = (row: number, coef: number): void => {
+    if (coef === 0 || row < 0) return;
+    const r = row * BASE_COUNT;
+    for (let k = 0; k < BASE_COUNT; k++) {
+      sumHdd[k] = sumHdd[k]! + coef * s.cumHdd[r + k]!;
+      sumCdd[k] = sumCdd[k]! + coef * s.cumCdd[r + k]!;
+    }
+  };
+  // the end row of the previous period carries +f; it merges with a start at the same row
+  let prevRow = -1;
+  let prevCoef = 0;
+  for (let i = 0; i < n; i++) {
+    const f = factor[i]!;
+    const from = rowFrom[i]!;
+    if (from === prevRow) add(from, prevCoef - f);
+    else {
+      add(prevRow, prevCoef);
+      add(from, -f);
+    }
+    prevRow = rowTo[i]!;
+    prevCoef = f;
+  }
+  add(prevRow, prevCoef);
+}
+
+/** Days of `startDay..endDay` that have a temperature. */
+export function temperatureDays(s: StationDegreeDays, startDay: number, endDay: number): number {
+  const a = Math.max(startDay - s.firstDay, 0);
+  const b = Math.min(endDay - s.firstDay + 1, s.days);
+  return b > a ? s.cumCount[b]! - s.cumCount[a]! : 0;
 }
 
 /**
@@ -91,6 +142,8 @@ export function fillPeriodFromStation(
   const b = Math.min(endDay - s.firstDay + 1, s.days);
   const count = b > a ? s.cumCount[b]! - s.cumCount[a]! : 0;
   out.count = count;
+  out.rowFrom = a;
+  out.rowTo = b;
   out.heatingFrom = BASE_COUNT;
   out.coolingTo = -1;
   if (count === 0) {
@@ -102,16 +155,15 @@ export function fillPeriodFromStation(
   const ra = a * BASE_COUNT;
   const rb = b * BASE_COUNT;
   const { cumHdd, cumCdd } = s;
-  let from = BASE_COUNT;
-  let to = -1;
   for (let k = 0; k < BASE_COUNT; k++) {
-    const h = (cumHdd[rb + k]! - cumHdd[ra + k]!) * inv;
-    const c = (cumCdd[rb + k]! - cumCdd[ra + k]!) * inv;
-    hdd[offset + k] = h;
-    cdd[offset + k] = c;
-    if (h > 0 && from === BASE_COUNT) from = k;
-    if (c > 0) to = k;
+    hdd[offset + k] = (cumHdd[rb + k]! - cumHdd[ra + k]!) * inv;
+    cdd[offset + k] = (cumCdd[rb + k]! - cumCdd[ra + k]!) * inv;
   }
+  // HDD_p rises and CDD_p falls with the base: find where each is non-zero
+  let from = 0;
+  while (from < BASE_COUNT && hdd[offset + from] === 0) from++;
+  let to = BASE_COUNT - 1;
+  while (to >= 0 && cdd[offset + to] === 0) to--;
   out.heatingFrom = from;
   out.coolingTo = to;
   return out;

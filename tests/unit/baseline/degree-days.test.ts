@@ -41,7 +41,7 @@ describe('daily degree days against published values (methods.md §3)', () => {
     const st = buildStationDegreeDays(dailyTemperaturesFromRows(rows)!);
     const hdd = new Float64Array(BASE_COUNT);
     const cdd = new Float64Array(BASE_COUNT);
-    const fill: PeriodFill = { count: 0, meanF: 0, heatingFrom: 0, coolingTo: 0 };
+    const fill: PeriodFill = { count: 0, meanF: 0, heatingFrom: 0, coolingTo: 0, rowFrom: 0, rowTo: 0 };
     const k65 = 65 - BASE_MIN_F;
     const expected = [[0, 5], [0, 15], [25, 0]] as const;
     expected.forEach(([h, c], d) => {
@@ -63,7 +63,7 @@ describe('period degree days (CalTRACK 2.0 §3.3.4–3.3.5)', () => {
           const st = buildStationDegreeDays(temps);
           const hdd = new Float64Array(BASE_COUNT);
           const cdd = new Float64Array(BASE_COUNT);
-          const fill: PeriodFill = { count: 0, meanF: 0, heatingFrom: 0, coolingTo: 0 };
+          const fill: PeriodFill = { count: 0, meanF: 0, heatingFrom: 0, coolingTo: 0, rowFrom: 0, rowTo: 0 };
           const start = 1000 + offset;
           const end = start + length - 1;
           fillPeriodFromStation(st, start, end, hdd, cdd, 0, fill);
