@@ -65,7 +65,13 @@ function parseArgs(argv: string[]): Args {
   return { bills, weather, json, workers, shapes };
 }
 
-async function readCsv(path: string, what: string, required: string[]): Promise<{ rows: Record<string, string>[]; column: Record<string, string> }> {
+/**
+ * Stream the rows of a CSV file (papaparse, chunked so 720,000 bill rows do not become 720,000
+ * retained objects) after checking that the header names every required column
+ * (case-insensitive). `onRow` gets the cells of the required columns, in `required` order, and
+ * the row's line number.
+ */
+async function readCsv(path: string, what: string, required: string[], onRow: (cells: string[], line: number) => void): Promise<void> {
   let text: string;
   try {
     text = await readFile(path, 'utf8');
@@ -73,17 +79,36 @@ async function readCsv(path: string, what: string, required: string[]): Promise<
     const code = (err as NodeJS.ErrnoException).code ?? 'error';
     throw new InputError(`cannot read the ${what} file '${path}' (${code})`);
   }
-  const parsed = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: 'greedy' });
-  const fields = parsed.meta.fields ?? [];
-  const column: Record<string, string> = {};
-  for (const name of required) {
-    const found = fields.find((f) => f.trim().toLowerCase() === name.toLowerCase());
-    if (found === undefined) {
-      throw new InputError(`the ${what} file '${path}' has no '${name}' column (it needs ${required.join(', ')}; found: ${fields.join(', ') || 'none'})`);
-    }
-    column[name] = found;
-  }
-  return { rows: parsed.data, column };
+  let columns: number[] | null = null;
+  let line = 0;
+  let failure: InputError | null = null;
+  // papaparse runs `chunk` synchronously for string input too; its typings only list it for files
+  const config: Papa.ParseConfig<string[]> & { chunkSize: number; chunk: (res: Papa.ParseResult<string[]>, parser: Papa.Parser) => void } = {
+    header: false,
+    skipEmptyLines: 'greedy',
+    chunkSize: 1 << 20,
+    chunk: (res, parser) => {
+      for (const row of res.data) {
+        line++;
+        if (columns === null) {
+          const fields = row.map((f) => f.trim());
+          const found = required.map((name) => fields.findIndex((f) => f.toLowerCase() === name.toLowerCase()));
+          const missing = required.find((_, j) => found[j] === -1);
+          if (missing !== undefined) {
+            failure = new InputError(`the ${what} file '${path}' has no '${missing}' column (it needs ${required.join(', ')}; found: ${fields.join(', ') || 'none'})`);
+            parser.abort();
+            return;
+          }
+          columns = found;
+          continue;
+        }
+        onRow(columns.map((c) => row[c] ?? ''), line);
+      }
+    },
+  };
+  Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), config);
+  if (failure !== null) throw failure;
+  if (columns === null) throw new InputError(`the ${what} file '${path}' is empty`);
 }
 
 function reportRowErrors(errors: string[], what: string): void {
@@ -93,21 +118,18 @@ function reportRowErrors(errors: string[], what: string): void {
 }
 
 async function readBills(path: string): Promise<PoolSeries[]> {
-  const { rows, column } = await readCsv(path, 'bills', ['series', 'period_start', 'period_end', 'quantity']);
   const bySeries = new Map<string, { starts: number[]; ends: number[]; quantities: number[] }>();
   const errors: string[] = [];
-  rows.forEach((row, i) => {
-    const line = i + 2; // header is line 1
-    const id = (row[column.series!] ?? '').trim();
-    const start = isoDateToDay(row[column.period_start!] ?? '');
-    const end = isoDateToDay(row[column.period_end!] ?? '');
-    const rawQ = (row[column.quantity!] ?? '').trim();
-    const q = rawQ === '' ? Number.NaN : Number(rawQ);
+  await readCsv(path, 'bills', ['series', 'period_start', 'period_end', 'quantity'], ([rawId, rawStart, rawEnd, rawQ], line) => {
+    const id = rawId!.trim();
+    const start = isoDateToDay(rawStart!);
+    const end = isoDateToDay(rawEnd!);
+    const q = rawQ!.trim() === '' ? Number.NaN : Number(rawQ);
     if (id === '') errors.push(`line ${line}: empty series`);
-    else if (start === null) errors.push(`line ${line}: period_start '${row[column.period_start!]}' is not a date YYYY-MM-DD`);
-    else if (end === null) errors.push(`line ${line}: period_end '${row[column.period_end!]}' is not a date YYYY-MM-DD`);
+    else if (start === null) errors.push(`line ${line}: period_start '${rawStart}' is not a date YYYY-MM-DD`);
+    else if (end === null) errors.push(`line ${line}: period_end '${rawEnd}' is not a date YYYY-MM-DD`);
     else if (end < start) errors.push(`line ${line}: period_end is before period_start`);
-    else if (!Number.isFinite(q)) errors.push(`line ${line}: quantity '${rawQ}' is not a number`);
+    else if (!Number.isFinite(q)) errors.push(`line ${line}: quantity '${rawQ!.trim()}' is not a number`);
     else {
       let s = bySeries.get(id);
       if (s === undefined) bySeries.set(id, (s = { starts: [], ends: [], quantities: [] }));
@@ -121,24 +143,19 @@ async function readBills(path: string): Promise<PoolSeries[]> {
 }
 
 async function readWeather(path: string): Promise<DailyTemperatureRow[]> {
-  const { rows, column } = await readCsv(path, 'weather', ['DATE', 'TMAX', 'TMIN']);
   const errors: string[] = [];
   const out: DailyTemperatureRow[] = [];
-  const num = (raw: string | undefined, line: number, name: string): number | null => {
-    const t = (raw ?? '').trim();
+  const num = (raw: string, line: number, name: string): number | null => {
+    const t = raw.trim();
     if (t === '') return null;
     const v = Number(t);
     if (!Number.isFinite(v)) errors.push(`line ${line}: ${name} '${t}' is not a number`);
     return Number.isFinite(v) ? v : null;
   };
-  rows.forEach((row, i) => {
-    const line = i + 2;
-    const date = (row[column.DATE!] ?? '').trim();
-    if (isoDateToDay(date) === null) {
-      errors.push(`line ${line}: DATE '${date}' is not a date YYYY-MM-DD`);
-      return;
-    }
-    out.push({ date, tmaxF: num(row[column.TMAX!], line, 'TMAX'), tminF: num(row[column.TMIN!], line, 'TMIN') });
+  await readCsv(path, 'weather', ['DATE', 'TMAX', 'TMIN'], ([rawDate, tmax, tmin], line) => {
+    const date = rawDate!.trim();
+    if (isoDateToDay(date) === null) errors.push(`line ${line}: DATE '${date}' is not a date YYYY-MM-DD`);
+    else out.push({ date, tmaxF: num(tmax!, line, 'TMAX'), tminF: num(tmin!, line, 'TMIN') });
   });
   reportRowErrors(errors, 'weather');
   if (out.length === 0) throw new InputError(`the weather file '${path}' has no rows`);

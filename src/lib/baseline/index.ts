@@ -6,6 +6,7 @@ export * from './grid';
 export * from './calendar-days';
 export * from './daily-temperatures';
 export * from './period-degree-days';
+export * from './station-degree-days';
 export * from './bill-periods';
 export * from './least-squares';
 export * from './householder-qr';

@@ -1,7 +1,9 @@
 import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
 import { PeriodTable, buildPeriodTable } from '../../../src/lib/baseline/bill-periods';
 import { packDailyMeans } from '../../../src/lib/baseline/daily-temperatures';
 import { isoDateToDay } from '../../../src/lib/baseline/calendar-days';
+import { BASE_COUNT } from '../../../src/lib/baseline/grid';
 
 const d = (iso: string): number => isoDateToDay(iso)!;
 const yearOfWeather = (missing: number[] = []) => {
@@ -56,5 +58,40 @@ describe('bills to periods (methods.md §2)', () => {
     );
     expect(dropped.map((x) => x.reason)).toEqual(['invalid-dates', 'invalid-quantity']);
     expect(t.n).toBe(1);
+  });
+});
+
+describe('day-weighted degree-day sums of a series', () => {
+  it('equal Σ days·DD_p at every base, with gaps, overlaps, shared read dates and missing days (property)', () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.record({ gap: fc.integer({ min: -3, max: 5 }), len: fc.integer({ min: 1, max: 40 }) }), { minLength: 1, maxLength: 30 }),
+        fc.array(fc.oneof(fc.integer({ min: 0, max: 100 }), fc.constant(Number.NaN)), { minLength: 1300, maxLength: 1300 }),
+        (shape, values) => {
+          const startDay: number[] = [];
+          const endDay: number[] = [];
+          let d = 10;
+          for (const s of shape) {
+            d += s.gap;
+            startDay.push(d);
+            endDay.push(d + s.len - 1);
+            d += s.len - 1;
+          }
+          const t = new PeriodTable();
+          buildPeriodTable({ startDay, endDay, quantity: startDay.map(() => 1) }, packDailyMeans(0, Float64Array.from(values)), t, 0.5);
+          for (let k = 0; k < BASE_COUNT; k++) {
+            let h = 0;
+            let c = 0;
+            for (let i = 0; i < t.n; i++) {
+              h += t.days[i]! * t.hdd[i * BASE_COUNT + k]!;
+              c += t.days[i]! * t.cdd[i * BASE_COUNT + k]!;
+            }
+            expect(t.weightedHdd[k]).toBeCloseTo(h, 6);
+            expect(t.weightedCdd[k]).toBeCloseTo(c, 6);
+          }
+        },
+      ),
+      { numRuns: 150 },
+    );
   });
 });
