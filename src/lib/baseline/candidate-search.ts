@@ -3,14 +3,9 @@
  *
  * With the balance points fixed every shape is linear, so each candidate is a closed-form
  * weighted least-squares problem (CalTRACK 2.0 §3.4.1 [confirmed]: weight = days). Sums are
- * accumulated once per series:
- * - centred per-base sums S_hh(b), S_hy(b) (and cooling alike) in two passes, so each one-slope
- *   candidate costs a handful of flops;
- * - for the two-slope shape the cross sums S_hc(bH, bC) = Σ w·H·C − W·m_H·m_C. The raw product
- *   H_p(bH)·C_p(bC) of a period is non-zero only when the period has a day colder than bH and a
- *   day warmer than bC, so Σ w·H·C is accumulated per period over that triangle only (shoulder
- *   months), and each of the ~1,900 (bH ≤ bC) pairs is then a 2×2 solve with early rejection
- *   on the sign of the slopes before any division.
+ * accumulated once per series: centred per-base sums S_hh(b), S_hy(b) (and cooling alike) in
+ * one pass, after which each one-slope candidate costs a handful of flops; the two-slope shape
+ * is searched in two-slope-search.ts.
  *
  * Qualification (CalTRACK 2.0 §3.4.3.2 [confirmed]): degree-day slopes > 0 and intercept ≥ 0.
  * Within a shape, the best candidate has the smallest weighted residual sum of squares (the same
@@ -19,77 +14,16 @@
  */
 import { BASE_COUNT } from './grid';
 import type { PeriodTable } from './bill-periods';
-
-/** Why a shape has no candidate. */
-export type CandidateFailure =
-  | 'not-requested'
-  | 'too-few-periods'
-  | 'no-degree-day-variation'
-  | 'constant-temperature'
-  | 'no-qualified-candidate';
-
-/** Best candidate of one shape; indices are grid positions (base = 30 + k °F), −1 when not used. */
-export interface ShapeBest {
-  found: boolean;
-  heatingK: number;
-  coolingK: number;
-  /** Σ w (y − ŷ)² of the candidate. */
-  ssResidual: number;
-  /** Candidates fitted (non-degenerate: varying degree days, not collinear). */
-  evaluated: number;
-  failure: CandidateFailure | null;
-}
-
-export interface ShapeMask {
-  heating: boolean;
-  cooling: boolean;
-  heatingCooling: boolean;
-  linear: boolean;
-}
-
-/** Relative variance below which a degree-day column counts as constant. */
-const CONSTANT_TOLERANCE = 1e-12;
-/** 1 − r² below which HDD and CDD columns count as collinear. */
-const COLLINEAR_TOLERANCE = 1e-10;
-/** Residual sums within this share of SS_tot count as tied. */
-export const TIE_TOLERANCE = 1e-12;
-/** Intercepts above −(this × max |y|) count as ≥ 0 (rounding of an exact zero). */
-const INTERCEPT_TOLERANCE = 1e-10;
-
-function emptyBest(): ShapeBest {
-  return { found: false, heatingK: -1, coolingK: -1, ssResidual: 0, evaluated: 0, failure: null };
-}
-
-/** Reusable buffers for one worker or one thread; not shared across concurrent searches. */
-export class SearchWorkspace {
-  readonly mH = new Float64Array(BASE_COUNT);
-  readonly mC = new Float64Array(BASE_COUNT);
-  readonly shh = new Float64Array(BASE_COUNT);
-  readonly scc = new Float64Array(BASE_COUNT);
-  readonly shy = new Float64Array(BASE_COUNT);
-  readonly scy = new Float64Array(BASE_COUNT);
-  readonly validH = new Uint8Array(BASE_COUNT);
-  readonly validC = new Uint8Array(BASE_COUNT);
-  readonly nonZeroWeight = new Float64Array(BASE_COUNT);
-  readonly cross = new Float64Array(BASE_COUNT * BASE_COUNT);
-  yc = new Float64Array(64);
-  sumWeights = 0;
-  meanY = 0;
-  ssTotal = 0;
-  readonly heating = emptyBest();
-  readonly cooling = emptyBest();
-  readonly heatingCooling = emptyBest();
-  readonly linear = emptyBest();
-}
-
-function reset(b: ShapeBest, failure: CandidateFailure | null): void {
-  b.found = false;
-  b.heatingK = -1;
-  b.coolingK = -1;
-  b.ssResidual = 0;
-  b.evaluated = 0;
-  b.failure = failure;
-}
+import { searchTwoSlope } from './two-slope-search';
+import {
+  CONSTANT_TOLERANCE,
+  INTERCEPT_TOLERANCE,
+  TIE_TOLERANCE,
+  resetBest,
+  type SearchWorkspace,
+  type ShapeBest,
+  type ShapeMask,
+} from './search-workspace';
 
 /**
  * Centred per-base sums for every base of one degree-day matrix: means m, S_xx = Σ w (x − m)²
@@ -170,91 +104,6 @@ function searchOneSlope(ws: SearchWorkspace, best: ShapeBest, heating: boolean, 
   if (!best.found) best.failure = 'no-qualified-candidate';
 }
 
-/** Σ w·H_p(bH)·C_p(bC) over the periods where both are non-zero, for every bH ≤ bC. */
-function accumulateCross(t: PeriodTable, ws: SearchWorkspace): void {
-  const cross = ws.cross;
-  cross.fill(0);
-  const { hdd, cdd, days, heatingFrom, coolingTo } = t;
-  for (let i = 0; i < t.n; i++) {
-    // H_p(30 + k) > 0 iff k ≥ heatingFrom (a colder day exists); C_p(30 + k) > 0 iff k ≤ coolingTo
-    const lo = heatingFrom[i]!;
-    const hi = coolingTo[i]!;
-    if (lo > hi) continue;
-    const row = i * BASE_COUNT;
-    const wi = days[i]!;
-    for (let kh = lo; kh <= hi; kh++) {
-      const hv = wi * hdd[row + kh]!;
-      // axpy over the row segment kc = kh..hi, unrolled by four (short rows; loop overhead matters)
-      let p = kh * BASE_COUNT + kh;
-      let q = row + kh;
-      const end = row + hi;
-      for (; q + 3 <= end; q += 4, p += 4) {
-        cross[p] = cross[p]! + hv * cdd[q]!;
-        cross[p + 1] = cross[p + 1]! + hv * cdd[q + 1]!;
-        cross[p + 2] = cross[p + 2]! + hv * cdd[q + 2]!;
-        cross[p + 3] = cross[p + 3]! + hv * cdd[q + 3]!;
-      }
-      for (; q <= end; q++, p++) cross[p] = cross[p]! + hv * cdd[q]!;
-    }
-  }
-}
-
-/** Two-slope shape over every (τH ≤ τC) pair. */
-function searchTwoSlope(t: PeriodTable, ws: SearchWorkspace, best: ShapeBest, muTol: number, tieTol: number): void {
-  accumulateCross(t, ws);
-  const { mH, mC, shh, scc, shy, scy, validH, validC, cross } = ws;
-  const W = ws.sumWeights;
-  const meanY = ws.meanY;
-  const sst = ws.ssTotal;
-  let bestSs = Number.POSITIVE_INFINITY;
-  let bestH = -1;
-  let bestC = -1;
-  let evaluated = 0;
-  // τH < τC has 5 parameters and needs n ≥ 6; τH = τC has 4 and needs n ≥ 5
-  const twoChangePoints = t.n >= 6;
-  for (let kh = 0; kh < BASE_COUNT; kh++) {
-    if (validH[kh] === 0) continue;
-    const kcEnd = twoChangePoints ? BASE_COUNT : kh + 1;
-    const a = shh[kh]!;
-    const hy = shy[kh]!;
-    const mh = mH[kh]!;
-    const wmh = W * mh;
-    const row = kh * BASE_COUNT;
-    for (let kc = kh; kc < kcEnd; kc++) {
-      if (validC[kc] === 0) continue;
-      const d = scc[kc]!;
-      const b = cross[row + kc]! - wmh * mC[kc]!;
-      const det = a * d - b * b;
-      if (!(det > COLLINEAR_TOLERANCE * a * d)) continue;
-      evaluated++;
-      const cy = scy[kc]!;
-      // slopes times det: βH·det = d·S_hy − b·S_cy, βC·det = a·S_cy − b·S_hy (det > 0)
-      const nh = d * hy - b * cy;
-      if (!(nh > 0)) continue;
-      const nc = a * cy - b * hy;
-      if (!(nc > 0)) continue;
-      // SS_res = SST − (nh·S_hy + nc·S_cy)/det: compare without dividing, then check the intercept
-      const gain = nh * hy + nc * cy;
-      const better = gain > (sst - bestSs + tieTol) * det;
-      const tiedFewer = !better && kh === kc && bestH !== bestC && gain >= (sst - bestSs - tieTol) * det;
-      if (!better && !tiedFewer) continue;
-      if (meanY * det - nh * mh - nc * mC[kc]! < -muTol * det) continue;
-      bestSs = sst - gain / det;
-      bestH = kh;
-      bestC = kc;
-    }
-  }
-  best.evaluated = evaluated;
-  if (bestH >= 0) {
-    best.found = true;
-    best.heatingK = bestH;
-    best.coolingK = bestC;
-    best.ssResidual = Math.max(0, bestSs);
-  } else {
-    best.failure = evaluated === 0 ? 'no-degree-day-variation' : 'no-qualified-candidate';
-  }
-}
-
 /** Linear in period mean temperature: closed form, no sign constraint. */
 function searchLinear(t: PeriodTable, ws: SearchWorkspace, best: ShapeBest): void {
   const n = t.n;
@@ -310,10 +159,10 @@ export function searchCandidates(t: PeriodTable, mask: ShapeMask, ws: SearchWork
   const tieTol = TIE_TOLERANCE * sst;
 
   // minimum periods: n − p ≥ 1 so that every statistic (CV(RMSE) with n − p) is defined
-  reset(ws.heating, mask.heating ? (n >= 4 ? null : 'too-few-periods') : 'not-requested');
-  reset(ws.cooling, mask.cooling ? (n >= 4 ? null : 'too-few-periods') : 'not-requested');
-  reset(ws.heatingCooling, mask.heatingCooling ? (n >= 5 ? null : 'too-few-periods') : 'not-requested');
-  reset(ws.linear, mask.linear ? (n >= 3 ? null : 'too-few-periods') : 'not-requested');
+  resetBest(ws.heating, mask.heating ? (n >= 4 ? null : 'too-few-periods') : 'not-requested');
+  resetBest(ws.cooling, mask.cooling ? (n >= 4 ? null : 'too-few-periods') : 'not-requested');
+  resetBest(ws.heatingCooling, mask.heatingCooling ? (n >= 5 ? null : 'too-few-periods') : 'not-requested');
+  resetBest(ws.linear, mask.linear ? (n >= 3 ? null : 'too-few-periods') : 'not-requested');
 
   const wantH = ws.heating.failure === null || ws.heatingCooling.failure === null;
   const wantC = ws.cooling.failure === null || ws.heatingCooling.failure === null;
