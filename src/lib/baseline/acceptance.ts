@@ -11,9 +11,9 @@ import type { FitQuality } from './fit-statistics';
 
 export const acceptanceThresholdsSchema = z.object({
   /** Largest CV(RMSE), GL14 form, as a fraction. */
-  maxCvrmse: z.number().positive().default(0.2),
-  minPeriods: z.number().int().nonnegative().default(12),
-  minDays: z.number().nonnegative().default(365),
+  maxCvrmse: z.number().positive().default(0.2), // ASHRAE Guideline 14, whole-building energy, monthly data [secondary]
+  minPeriods: z.number().int().nonnegative().default(12), // CalTRACK 2.0 §2.2.1.1: a year of bills
+  minDays: z.number().nonnegative().default(365), // CalTRACK 2.0 §2.2.1.1: baseline of 365 days
 });
 export type AcceptanceThresholds = z.infer<typeof acceptanceThresholdsSchema>;
 

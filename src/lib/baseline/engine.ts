@@ -15,7 +15,7 @@ import { searchCandidates } from './candidate-search';
 import { SearchWorkspace, type CandidateFailure, type ShapeBest } from './search-workspace';
 import { fitShapeAt, type FittedModel } from './model';
 import type { RegressionFailure } from './least-squares';
-import { acceptanceThresholdsSchema, assessAcceptance, type Acceptance } from './acceptance';
+import { DEFAULT_ACCEPTANCE, acceptanceThresholdsSchema, assessAcceptance, type Acceptance } from './acceptance';
 import { STATISTICS_CONVENTIONS } from './fit-statistics';
 import { selectScore, type CandidateScore } from './selection';
 import { dayToIsoDate } from './calendar-days';
@@ -24,8 +24,8 @@ export const fitOptionsSchema = z.object({
   /** Shapes to consider (default: all). E.g. no cooling shapes for gas. */
   shapes: z.array(shapeSchema).min(1).optional(),
   /** Share of a period's days that must have a temperature (CalTRACK 2.0 §2.2.3.2: 0.9). */
-  minTemperatureCoverage: z.number().min(0).max(1).default(0.9),
-  acceptance: acceptanceThresholdsSchema.default({ maxCvrmse: 0.2, minPeriods: 12, minDays: 365 }),
+  minTemperatureCoverage: z.number().min(0).max(1).default(0.9), // CalTRACK 2.0 §2.2.3.2
+  acceptance: acceptanceThresholdsSchema.default(DEFAULT_ACCEPTANCE),
   /** Full statistics for the best candidate of every shape, or for the selected model only. */
   statistics: z.enum(['all-shapes', 'selected']).default('all-shapes'),
   /** Include the per-period table (use per day, temperature, prediction) of the selected model. */
