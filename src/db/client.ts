@@ -59,21 +59,32 @@ async function openPostgres(url: string): Promise<DatabaseHandle> {
   };
 }
 
+/**
+ * PostgreSQL settings for the embedded database. PGlite's WASM heap never shrinks, and its
+ * buffer cache is part of it: PLUMBLINE_PGLITE_SHARED_BUFFERS (default 64MB, half of PGlite's
+ * default) trades some cache for a smaller process.
+ */
+function pgliteConf(): string[] {
+  const sb = process.env.PLUMBLINE_PGLITE_SHARED_BUFFERS ?? '64MB';
+  return /^\d+(kB|MB|GB)$/.test(sb) ? [`shared_buffers=${sb}`] : [];
+}
+
 async function openPglite(dir: string): Promise<DatabaseHandle> {
   const extensions = { btree_gist };
+  const postgresqlconf = pgliteConf();
   let client: PGlite;
   let release: (() => void) | undefined;
   if (dir === MEMORY) {
     const template = process.env.PLUMBLINE_PGLITE_TEMPLATE;
     client = template
-      ? await PGlite.create({ loadDataDir: new Blob([readFileSync(template)]), extensions })
-      : await PGlite.create({ extensions });
+      ? await PGlite.create({ loadDataDir: new Blob([readFileSync(template)]), extensions, postgresqlconf })
+      : await PGlite.create({ extensions, postgresqlconf });
   } else {
     release = acquireDataDirLock(dir);
     const pgdata = join(dir, 'pglite');
     mkdirSync(pgdata, { recursive: true });
     try {
-      client = await PGlite.create({ dataDir: pgdata, extensions });
+      client = await PGlite.create({ dataDir: pgdata, extensions, postgresqlconf });
     } catch (e) {
       release();
       throw e;

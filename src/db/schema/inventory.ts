@@ -115,12 +115,11 @@ export const bill = pgTable(
   'bill',
   {
     id: bigint('id', { mode: 'number' }).primaryKey().generatedAlwaysAsIdentity(),
+    // The meter carries the installation: bills are reached through their meter, so the scope
+    // of a bill is its meter's (one foreign key less on the table that takes millions of rows).
     meterId: uuid('meter_id')
       .notNull()
       .references(() => meter.id),
-    installationId: uuid('installation_id')
-      .notNull()
-      .references(() => installation.id),
     periodStart: date('period_start').notNull(),
     periodEnd: date('period_end').notNull(),
     quantity: doublePrecision('quantity').notNull(),
@@ -135,12 +134,10 @@ export const bill = pgTable(
     createdAt: created(),
     updatedAt: updated(),
   },
-  (t) => [
-    uniqueIndex('bill_meter_period_uq').on(t.meterId, t.periodStart, t.periodEnd),
-    index('bill_installation_idx').on(t.installationId),
-    index('bill_import_idx').on(t.importId),
-    index('bill_created_import_idx').on(t.createdImportId),
-  ],
+  // One index only: bills arrive by the million and every index and foreign key slows the load
+  // (decision 0006).
+  // Reads go by meter (the unique key's prefix); undo scans by import, which is rare.
+  (t) => [uniqueIndex('bill_meter_period_uq').on(t.meterId, t.periodStart, t.periodEnd)],
 );
 
 /** Activity log: who did what, when (security events, imports, exports, role changes). */

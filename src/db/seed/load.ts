@@ -101,7 +101,6 @@ export async function loadScenarioData(tx: Db | Tx, s: DemoScenario): Promise<vo
   const meterOf = bills.map((b) => meterIds.get(b.meterCode)!);
   await bulkInsert(tx, 'bill', [
     { name: 'meter_id', type: 'uuid', values: meterOf.map((m) => m.id) },
-    { name: 'installation_id', type: 'uuid', values: meterOf.map((m) => m.installationId) },
     { name: 'period_start', type: 'date', values: bills.map((b) => b.periodStart) },
     { name: 'period_end', type: 'date', values: bills.map((b) => b.periodEnd) },
     { name: 'quantity', type: 'float8', values: bills.map((b) => b.quantity) },

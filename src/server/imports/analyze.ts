@@ -53,6 +53,8 @@ export interface Analysis {
   existingId: Float64Array;
   problems: ImportProblem[];
   counts: { new: number; changed: number; unchanged: number; conflicts: number; repeats: number };
+  /** Row indices grouped by meter (see groupByMeter), reused by the writer. */
+  groups: { offsets: Int32Array; order: Int32Array };
 }
 
 /** Series findings worth reporting on an import (row-level ones come from the row validator). */
@@ -143,5 +145,5 @@ export function analyzeRows(rows: BillRowStore, meters: readonly ImportMeter[], 
       problems.push({ row: line, column: null, code: f.code, message: `Meter ${meters[m]!.code}: ${f.message}`, severity: 'warning' });
     }
   }
-  return { cls, existingId, problems, counts };
+  return { cls, existingId, problems, counts, groups: { offsets, order } };
 }

@@ -74,3 +74,21 @@ export function groupByMeter(rows: BillRowStore, meterCount: number): { offsets:
   }
   return { offsets, order };
 }
+
+/**
+ * ISO date text → day number, memoized: a file of a million bills has only a few thousand
+ * distinct dates, and the conversion is on the hot path of every row.
+ */
+export class DateMemo {
+  private readonly toDay = new Map<string, number>();
+  constructor(private readonly dayOf: (iso: string) => number | null) {}
+
+  day(iso: string): number {
+    let d = this.toDay.get(iso);
+    if (d === undefined) {
+      d = this.dayOf(iso)!;
+      this.toDay.set(iso, d);
+    }
+    return d;
+  }
+}

@@ -41,9 +41,10 @@ export async function listInstallations(actor: Actor): Promise<InstallationSumma
     .groupBy(meter.installationId)
     .as('m');
   const l = db
-    .select({ installationId: bill.installationId, lastEnd: max(bill.periodEnd).as('last_end') })
+    .select({ installationId: meter.installationId, lastEnd: max(bill.periodEnd).as('last_end') })
     .from(bill)
-    .groupBy(bill.installationId)
+    .innerJoin(meter, eq(meter.id, bill.meterId))
+    .groupBy(meter.installationId)
     .as('l');
   const rows = await db
     .select({

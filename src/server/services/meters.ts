@@ -106,7 +106,8 @@ export async function listBills(actor: Actor, meterId: string) {
       importId: bill.importId,
     })
     .from(bill)
-    .where(and(eq(bill.meterId, meterId), scopeToInstallations(actor, bill.installationId)))
+    .innerJoin(meter, eq(meter.id, bill.meterId))
+    .where(and(eq(bill.meterId, meterId), scopeToInstallations(actor, meter.installationId)))
     .orderBy(asc(bill.periodStart), asc(bill.periodEnd));
   if (rows.length === 0) await getMeter(actor, meterId); // 404 when the meter is not visible
   return rows;

@@ -1,0 +1,1 @@
+ALTER TABLE "bill" ADD COLUMN "created_import_id" uuid;
