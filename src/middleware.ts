@@ -8,6 +8,7 @@ import { loadActor } from './server/actor';
 import { errorResponse, errors, HttpError } from './server/http';
 import { ensureRuntime } from './server/runtime';
 import { securityHeaders } from './server/security-headers';
+import { trustedOrigins } from './server/config';
 
 const PUBLIC_PAGES = new Set(['/sign-in', '/forgot-password', '/reset-password']);
 const PUBLIC_PREFIXES = ['/api/auth/', '/_astro/', '/fonts/'];
@@ -15,6 +16,31 @@ const PUBLIC_FILES = new Set(['/api/health', '/favicon.svg', '/robots.txt']);
 
 function isPublic(path: string): boolean {
   return PUBLIC_PAGES.has(path) || PUBLIC_FILES.has(path) || PUBLIC_PREFIXES.some((p) => path.startsWith(p));
+}
+
+const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+/**
+ * Cross-site request forgery guard (OWASP ASVS 4.0.3 4.2.2, 13.2.3: Origin check): a request that
+ * changes something and comes from a browser must come from one of our origins — the configured
+ * base URL and trusted origins, or the host the request was sent to.
+ */
+function crossSite(request: Request): boolean {
+  if (SAFE_METHODS.has(request.method)) return false;
+  const origin = request.headers.get('origin');
+  if (!origin) {
+    // Browsers always send Origin on such requests; a missing one with a cross-site fetch
+    // marker is refused, scripts without either are judged by their session and content type.
+    const site = request.headers.get('sec-fetch-site');
+    return site !== null && site !== 'same-origin' && site !== 'none';
+  }
+  if (trustedOrigins().includes(origin)) return false;
+  const host = request.headers.get('host');
+  try {
+    return !host || new URL(origin).host !== host;
+  } catch {
+    return true;
+  }
 }
 
 function escapeHtml(s: string): string {
@@ -41,6 +67,10 @@ export const onRequest = defineMiddleware(async (ctx, next) => {
   }
 
   const path = ctx.url.pathname;
+  if (crossSite(ctx.request)) {
+    const refusal = errors.forbidden('Cross-site requests are refused: send the request from Plumbline itself.');
+    return securityHeaders(path.startsWith('/api/') ? errorResponse(refusal) : errorPage(403, refusal.message));
+  }
   if (!path.startsWith('/api/auth/') && !path.startsWith('/_astro/')) {
     const auth = await getAuth();
     const session = await auth.api.getSession({ headers: ctx.request.headers }).catch(() => null);

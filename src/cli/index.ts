@@ -1,11 +1,16 @@
 /**
  * Plumbline command line: `npm run plumbline -- <command> [args]` (tsx src/cli/index.ts).
- * Commands work on files, without the database.
+ * `fit` works on files alone; `import` and `weather` open the database (stop the server first
+ * when it runs on the embedded database: one process at a time).
  */
 import { fitCommand } from './commands/fit';
+import { importCommand } from './commands/import';
+import { weatherCommand } from './commands/weather';
 
 const commands: Record<string, { run: (argv: string[], out: NodeJS.WritableStream) => Promise<number>; help: string }> = {
   fit: { run: fitCommand, help: 'fit --bills <csv> --weather <csv> [--json] [--workers N]   weather-normalized baselines from files' },
+  import: { run: importCommand, help: 'import <file> --installation <code> [--map field=Header,...] [--dry-run] [--json]   bills into the database' },
+  weather: { run: weatherCommand, help: 'weather <file> --station <code> [--units standard|metric] [--json]   daily temperatures into the database' },
 };
 
 async function main(argv: string[]): Promise<number> {

@@ -52,6 +52,19 @@ describe('sign-in', () => {
     expect(maxAge).toBeLessThanOrEqual(12 * 3600);
   });
 
+  it('a cross-site request that changes something is refused, whatever its content type', async () => {
+    const cookie = await signIn(DEMO.staff);
+    for (const [type, body] of [
+      ['application/json', JSON.stringify({ notes: 'x' })],
+      ['application/x-www-form-urlencoded', 'notes=x'],
+      ['multipart/form-data; boundary=x', '--x--'],
+    ] as const) {
+      const r = await fetch(`${baseUrl()}/api/imports`, { method: 'POST', headers: { cookie, origin: 'https://evil.example', 'content-type': type }, body });
+      expect(r.status).toBe(403);
+      expect((await r.json()).error.message).toMatch(/Cross-site/);
+    }
+  });
+
   it('pages send the security headers', async () => {
     const r = await fetch(`${baseUrl()}/sign-in`);
     expect(r.headers.get('content-security-policy')).toMatch(/frame-ancestors 'none'/);

@@ -5,11 +5,21 @@
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { apiRoutes } from '../support/routes';
-import { call, type CallResult } from '../support/http';
+import { call, fileForm, type CallResult } from '../support/http';
 
+interface SideFixture {
+  installation: string;
+  building: string;
+  meter: string;
+  meterCode: string;
+  station: string;
+  dryRun: string;
+  committed: string;
+  mapping: string;
+}
 interface Fixture {
-  own: { installation: string; building: string; meter: string };
-  foreign: { installation: string; building: string; meter: string };
+  own: SideFixture;
+  foreign: SideFixture;
   staffUserId: string;
 }
 let fx: Fixture;
@@ -18,12 +28,25 @@ beforeAll(async () => {
   const buildings = (await call('admin', 'GET', '/api/buildings')).body.items as { id: string; installationCode: string }[];
   const meters = (await call('admin', 'GET', '/api/meters')).body.items as { id: string; installationCode: string }[];
   const users = (await call('admin', 'GET', '/api/users')).body.items as { id: string; email: string }[];
-  const pick = (code: string) => ({
-    installation: code,
-    building: buildings.find((b) => b.installationCode === code)!.id,
-    meter: meters.find((m) => m.installationCode === code)!.id,
-  });
-  fx = { own: pick('BNP'), foreign: pick('KSL'), staffUserId: users.find((u) => u.email === 'staff@demo.plumbline.test')!.id };
+  // For each side: an import checked and one committed (a bill after the demo's last), and a saved mapping.
+  const pick = async (code: string): Promise<SideFixture> => {
+    const m = (meters as { id: string; code: string; installationCode: string; commodity?: string }[]).find((x) => x.installationCode === code && x.code.endsWith('-E'))!;
+    const csv = `Meter,Start,End,Usage\n${m.code},2026-12-01,2026-12-30,100\n`;
+    const dry = await call('admin', 'POST', '/api/imports', fileForm({ name: 'scope.csv', text: csv }, { installation: code, dryRun: 'true' }));
+    const done = await call('admin', 'POST', '/api/imports', fileForm({ name: 'scope.csv', text: csv }, { installation: code, dryRun: 'false' }));
+    const mapping = await call('admin', 'POST', '/api/mappings', { installation: code, name: `scope ${code}`, mapping: { meter: 'Meter', periodStart: 'Start', periodEnd: 'End', quantity: 'Usage' } });
+    return {
+      installation: code,
+      building: buildings.find((b) => b.installationCode === code)!.id,
+      meter: m.id,
+      meterCode: m.code,
+      station: `${code}WX`,
+      dryRun: dry.body.id,
+      committed: done.body.id,
+      mapping: mapping.body.id,
+    };
+  };
+  fx = { own: await pick('BNP'), foreign: await pick('KSL'), staffUserId: users.find((u) => u.email === 'staff@demo.plumbline.test')!.id };
 });
 
 type Side = 'own' | 'foreign';
@@ -78,6 +101,37 @@ const CASES: Record<string, RouteCase> = {
     staff: { own: [403], foreign: [403] },
   },
   'PATCH /api/users/[id]': { request: () => ({ path: `/api/users/${fx.staffUserId}`, body: { role: 'admin' } }), staff: { own: [403], foreign: [403] } },
+  'GET /api/imports': { request: (s) => ({ path: `/api/imports?installation=${same(s).installation}&all=1` }), staff: { own: [200], foreign: [403] } },
+  'POST /api/imports': {
+    request: (s) => ({ path: '/api/imports', body: fileForm({ name: 'b.csv', text: `Meter,Start,End,Usage\n${same(s).meterCode},2026-12-01,2026-12-30,100\n` }, { installation: same(s).installation, dryRun: 'true' }) }),
+    staff: { own: [200], foreign: [403] },
+  },
+  'GET /api/imports/[id]': { request: (s) => ({ path: `/api/imports/${same(s).dryRun}` }), staff: { own: [200], foreign: [404] } },
+  // Undoing a dry run is refused on its merits (409): the caller got past authorization.
+  'DELETE /api/imports/[id]': { request: (s) => ({ path: `/api/imports/${same(s).dryRun}` }), staff: { own: [409], foreign: [404] } },
+  'GET /api/imports/[id]/report': { request: (s) => ({ path: `/api/imports/${same(s).dryRun}/report` }), staff: { own: [200], foreign: [404] } },
+  'GET /api/imports/[id]/original': { request: (s) => ({ path: `/api/imports/${same(s).committed}/original` }), staff: { own: [200], foreign: [404] } },
+  'GET /api/imports/progress/[key]': { request: () => ({ path: '/api/imports/progress/no-such-upload-1234' }), staff: { own: [404], foreign: [404] } },
+  'GET /api/imports/template': { request: () => ({ path: '/api/imports/template' }), staff: { own: [200], foreign: [200] } },
+  'GET /api/mappings': { request: (s) => ({ path: `/api/mappings?installation=${same(s).installation}` }), staff: { own: [200], foreign: [403] } },
+  'POST /api/mappings': {
+    request: (s) => ({ path: '/api/mappings', body: { installation: same(s).installation, name: 'staff mapping', mapping: { meter: 'M', periodStart: 'S', periodEnd: 'E', quantity: 'Q' } } }),
+    staff: { own: [201], foreign: [403] },
+  },
+  'DELETE /api/mappings/[id]': { request: (s) => ({ path: `/api/mappings/${same(s).mapping}` }), staff: { own: [204, 404], foreign: [404] } },
+  'GET /api/weather/stations': { request: () => ({ path: '/api/weather/stations' }), staff: { own: [200], foreign: [200] } },
+  'POST /api/weather/stations': {
+    request: (s) => ({ path: '/api/weather/stations', body: { code: `SC-${s}-${Date.now() % 100000}`, name: 'Scope station', installation: same(s).installation } }),
+    staff: { own: [201], foreign: [403] },
+  },
+  'GET /api/weather/stations/[code]': { request: (s) => ({ path: `/api/weather/stations/${same(s).station}` }), staff: { own: [200], foreign: [404] } },
+  'POST /api/weather/stations/[code]/observations': {
+    request: (s) => ({ path: `/api/weather/stations/${same(s).station}/observations`, body: fileForm({ name: 'w.csv', text: 'STATION,DATE,TMAX,TMIN\n,2030-01-01,40,20\n' }, { units: 'standard' }) }),
+    staff: { own: [201], foreign: [404] },
+  },
+  // The demo stations have no weather-service id: refused on its merits (409) once authorized.
+  'POST /api/weather/stations/[code]/fetch': { request: (s) => ({ path: `/api/weather/stations/${same(s).station}/fetch`, body: { start: '2026-01-01', end: '2026-01-31' } }), staff: { own: [409], foreign: [404] } },
+  'GET /api/weather/degree-days': { request: (s) => ({ path: `/api/weather/degree-days?station=${same(s).station}&start=2025-01-01&end=2025-01-31&base=65` }), staff: { own: [200], foreign: [404] } },
   'GET /api/outbox': { request: () => ({ path: '/api/outbox' }), staff: { own: [403], foreign: [403] } },
   'GET /api/activity': { request: () => ({ path: '/api/activity' }), staff: { own: [403], foreign: [403] } },
 };

@@ -53,7 +53,8 @@ export async function call<T = any>(
   const headers: Record<string, string> = { origin: baseUrl() };
   if (as) headers.cookie = await signIn(as in DEMO ? DEMO[as as DemoRole] : as);
   let payload: BodyInit | undefined = init.raw;
-  if (body !== undefined) {
+  if (body instanceof FormData) payload = body;
+  else if (body !== undefined) {
     headers['content-type'] = init.contentType ?? 'application/json';
     payload = JSON.stringify(body);
   } else if (init.contentType) headers['content-type'] = init.contentType;
@@ -66,4 +67,12 @@ export async function call<T = any>(
     /* html or text */
   }
   return { status: res.status, body: parsed as T, headers: res.headers };
+}
+
+/** A multipart form with a file, as the intake screen sends it. */
+export function fileForm(file: { name: string; text: string | Uint8Array; type?: string }, fields: Record<string, string>): FormData {
+  const form = new FormData();
+  form.set('file', new File([file.text as BlobPart], file.name, { type: file.type ?? 'text/csv' }));
+  for (const [k, v] of Object.entries(fields)) form.set(k, v);
+  return form;
 }

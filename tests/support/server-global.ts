@@ -15,6 +15,8 @@ declare module 'vitest' {
   export interface ProvidedContext {
     baseUrl: string;
     serverDataDir: string;
+    /** A stopped data folder with the demo loaded (PGlite runs only), to copy for offline tools. */
+    demoTemplateDir: string;
   }
 }
 
@@ -67,6 +69,7 @@ export default async function setup(project: TestProject) {
       await a.end();
     };
     project.provide('serverDataDir', '');
+    project.provide('demoTemplateDir', '');
   } else {
     const template = await demoTemplate();
     const dataDir = mkdtempSync(join(tmpdir(), `plumbline-${project.name}-`));
@@ -75,6 +78,7 @@ export default async function setup(project: TestProject) {
     server = await startServer({ dataDir });
     cleanup = async () => rmSync(dataDir, { recursive: true, force: true });
     project.provide('serverDataDir', dataDir);
+    project.provide('demoTemplateDir', template);
   }
   project.provide('baseUrl', server.baseUrl);
   return async () => {

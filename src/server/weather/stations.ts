@@ -154,7 +154,9 @@ async function storeDays(actor: Actor, station: { id: string; code: string }, da
 /** Loads a daily-summaries CSV (STATION, DATE, TMAX, TMIN; °F or °C as stated) into a station. */
 export async function importWeatherFile(actor: Actor, code: string, file: { name: string; bytes: Uint8Array }, units: 'standard' | 'metric' | 'F' | 'C' | 'tenths-C', ip = ''): Promise<WeatherLoadReport> {
   const station = await writableStation(actor, code);
-  const parsed = await parseWeatherCsv(file.bytes, { units, station: station.serviceId ?? undefined });
+  // Rows must be for this station: its weather-service id, or its own code when it has none
+  // (a blank STATION column is filled with it).
+  const parsed = await parseWeatherCsv(file.bytes, { units, station: station.serviceId ?? station.code });
   if (!parsed.ok) throw errors.unprocessable(parsed.message, { reason: parsed.reason });
   return storeDays(actor, station, parsed.days, parsed.problems, parsed.counts.rejected, { kind: 'weather-csv', fileName: file.name, source: 'file', bytes: file.bytes.length }, ip);
 }
