@@ -200,7 +200,7 @@ function Intake({ installations, initialInstallation }: { installations: { code:
           <div>
             <label htmlFor="intake-file" className="field-label">Bill file (CSV, or Green Button XML)</label>
             <input id="intake-file" type="file" accept=".csv,.txt,.tsv,.xml,text/csv,application/xml,text/xml" className="field-input" onChange={(e) => setFile(e.target.files?.[0] ?? null)} />
-            <p className="field-hint">Any column order and header spelling; `,` `;` or tab separated; US or ISO dates. <a href="/api/imports/template">Download a template</a>.</p>
+            <p className="field-hint">Any column order and header spelling; comma, semicolon or tab separated; US or ISO dates. <a href="/api/imports/template">Download a template</a>.</p>
           </div>
         </div>
         {preview?.error && <p className="notice-error" role="alert">{preview.error}</p>}

@@ -1,5 +1,5 @@
 /** Import records: list, read, undo, report and original file, within the actor's installations. */
-import { and, desc, eq } from 'drizzle-orm';
+import { and, desc, eq, inArray } from 'drizzle-orm';
 import { promisify } from 'node:util';
 import { gunzip } from 'node:zlib';
 import { getDb } from '../../db/client';
@@ -37,7 +37,8 @@ export async function listImports(actor: Actor, query: { installationId?: string
       and(
         scopeToInstallations(actor, importRun.installationId),
         query.installationId ? eq(importRun.installationId, query.installationId) : undefined,
-        query.includeDryRuns ? undefined : eq(importRun.status, 'committed'),
+        // By default the imports that changed bills: in effect or undone; checks and refusals on request.
+        query.includeDryRuns ? undefined : inArray(importRun.status, ['committed', 'undone']),
       ),
     )
     .orderBy(desc(importRun.createdAt))
