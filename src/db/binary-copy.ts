@@ -28,7 +28,7 @@ export function uuidBytes(u: string): Uint8Array {
   let k = 0;
   for (let i = 0; i < u.length && k < 16; i++) {
     if (u.charCodeAt(i) === 45) continue; // '-'
-    out[k++] = parseInt(u.substr(i, 2), 16);
+    out[k++] = parseInt(u.slice(i, i + 2), 16);
     i++;
   }
   return out;

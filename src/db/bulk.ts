@@ -9,7 +9,7 @@ import type { Db, Tx } from './client';
 export interface BulkColumn {
   name: string;
   /** PostgreSQL type of the column's array elements, e.g. `date`, `float8`, `uuid`, `text`, `bool`. */
-  type: 'date' | 'float8' | 'uuid' | 'text' | 'bool' | 'int4' | 'int8';
+  type: 'date' | 'float8' | 'uuid' | 'text' | 'bool' | 'int4' | 'int8' | 'jsonb';
   values: readonly unknown[];
 }
 

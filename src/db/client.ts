@@ -14,6 +14,7 @@ import { migrate as migratePglite } from 'drizzle-orm/pglite/migrator';
 import { drizzle as drizzlePg } from 'drizzle-orm/node-postgres';
 import { migrate as migratePg } from 'drizzle-orm/node-postgres/migrator';
 import type { PgDatabase, PgQueryResultHKT } from 'drizzle-orm/pg-core';
+import type { SQL } from 'drizzle-orm';
 import pg from 'pg';
 import * as schema from './schema';
 import { acquireDataDirLock } from './lock';
@@ -150,3 +151,9 @@ export async function closeDatabase(): Promise<void> {
 }
 
 export { schema };
+
+/** Rows of a raw SQL query (`sql\`…\``), typed by the caller; the same on PGlite and pg. */
+export async function queryRows<T>(db: Db | Tx, query: SQL): Promise<T[]> {
+  const r = await db.execute(query);
+  return (r as unknown as { rows: T[] }).rows;
+}

@@ -21,8 +21,10 @@ export async function seedDemoIfEmpty(options: { today?: string } = {}): Promise
   for (const p of scenario.people) {
     await createUser(null, { email: p.email, name: p.name, role: p.role, installations: p.installationCodes }, DEMO_PASSWORD);
   }
+  const { refitBaselines } = await import('./baselines/run');
+  const fits = await refitBaselines({}, 'demo');
   console.log(
-    `[demo] loaded region ${scenario.region.name}: ${scenario.installations.length} installations, ` +
+    `[demo] fitted ${fits.fitted} baselines (${fits.failed} without a model) in ${fits.seconds.toFixed(1)} s; loaded region ${scenario.region.name}: ${scenario.installations.length} installations, ` +
       `${scenario.buildings.length} buildings, ${scenario.meters.length} meters, ${scenario.bills.length} bills ` +
       `in ${((Date.now() - started) / 1000).toFixed(1)} s`,
   );

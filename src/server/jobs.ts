@@ -19,7 +19,17 @@ const KEY = Symbol.for('plumbline.jobs');
 type Holder = typeof globalThis & { [KEY]?: ScheduledTask[] };
 const holder = globalThis as Holder;
 
-export const JOBS: JobDefinition[] = [];
+export const JOBS: JobDefinition[] = [
+  {
+    name: 'refit-baselines',
+    schedule: '30 2 * * *',
+    async run() {
+      const { refitBaselines } = await import('./baselines/run');
+      const r = await refitBaselines({}, 'nightly');
+      return `${r.fitted} fitted, ${r.failed} without a model, ${r.seconds.toFixed(1)} s`;
+    },
+  },
+];
 
 const instance = `${hostname()}:${process.pid}`;
 

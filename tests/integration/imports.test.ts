@@ -7,8 +7,8 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { sql } from 'drizzle-orm';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { getDb } from '../../src/db/client';
-import { bill, building, meter } from '../../src/db/schema';
+import { getDb, queryRows } from '../../src/db/client';
+import { building, meter } from '../../src/db/schema';
 import { HttpError } from '../../src/server/http';
 import { importBills, type BillImportRequest } from '../../src/server/imports/bills';
 import { getImport, undoCommittedImport } from '../../src/server/imports/service';
@@ -25,9 +25,7 @@ let req: (bytes: Uint8Array, dryRun: boolean, mapping?: Record<string, string>) 
 
 /** Every column of every bill, in a stable order: "exact prior state" means equal to this. */
 async function snapshot() {
-  const db = await getDb();
-  const r = await db.execute(sql`select * from bill order by id`);
-  return r.rows;
+  return queryRows<Record<string, unknown>>(await getDb(), sql`select * from bill order by id`);
 }
 
 beforeAll(async () => {
@@ -83,8 +81,8 @@ describe('a messy file', () => {
     const second = await importBills(staff, req(new TextEncoder().encode(corrected), false));
     expect(second.counts).toMatchObject({ new: 0, changed: 1, unchanged: 6 });
     const db = await getDb();
-    const april = await db.execute(sql`select quantity, import_id from bill where period_start = '2024-04-01' and unit = 'kWh'`);
-    expect(april.rows).toEqual([{ quantity: 1030, import_id: second.id }]);
+    const april = await queryRows(db, sql`select quantity, import_id from bill where period_start = '2024-04-01' and unit = 'kWh'`);
+    expect(april).toEqual([{ quantity: 1030, import_id: second.id }]);
 
     // The older import cannot be undone while the later one holds a bill it created.
     await expect(undoCommittedImport(staff, first.id)).rejects.toMatchObject({ status: 409 });
@@ -134,10 +132,10 @@ describe('Green Button', () => {
     });
     expect(r.kind).toBe('green-button');
     expect(r.counts.rejected).toBe(0);
-    const sums = await db.execute(sql`select unit, sum(quantity)::float8 as q, sum(cost)::float8 as c from bill where import_id = ${r.id} group by unit order by unit`);
+    const sums = await queryRows<{ unit: string; q: number; c: number }>(db, sql`select unit, sum(quantity)::float8 as q, sum(cost)::float8 as c from bill where import_id = ${r.id} group by unit order by unit`);
     // Hand arithmetic from the feed: electricity (412345 + 398760 + 405112) Wh × 10^0 / 1000 = 1216.217 kWh;
     // gas 18734 × 10^-2 = 187.34 therm (uom 169). Costs are in hundred-thousandths of a dollar.
-    const byUnit = Object.fromEntries(sums.rows.map((x) => [x.unit, x]));
+    const byUnit = Object.fromEntries(sums.map((x) => [x.unit, x]));
     expect(byUnit.kWh!.q).toBeCloseTo(1216.217, 9);
     expect(byUnit.therm!.q).toBeCloseTo(187.34, 9);
     expect(byUnit.kWh!.c).toBeCloseTo(144.12171, 9);

@@ -1,12 +1,19 @@
 /** Baselines, shortlist flags and ranking weights. */
 import { sql } from 'drizzle-orm';
-import { boolean, date, index, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
-import { building, installation, region } from './inventory';
+import { boolean, date, doublePrecision, index, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import { building, installation, meter, region } from './inventory';
 
+/**
+ * The weather-normalized baseline of one meter (a building × commodity), refitted when its bills
+ * or weather change. One row per meter; the decisions taken on it are in baseline_decision.
+ */
 export const baseline = pgTable(
   'baseline',
   {
     id: uuid('id').primaryKey().defaultRandom(),
+    meterId: uuid('meter_id')
+      .notNull()
+      .references(() => meter.id),
     buildingId: uuid('building_id')
       .notNull()
       .references(() => building.id),
@@ -14,22 +21,40 @@ export const baseline = pgTable(
       .notNull()
       .references(() => installation.id),
     commodity: text('commodity').notNull(),
+    /** The unit use per day is fitted in: the meter's billing unit. */
+    unit: text('unit').notNull().default(''),
+    /** The baseline period; chosen by an analyst when periodChosen, else the default window. */
     periodStart: date('period_start'),
     periodEnd: date('period_end'),
+    periodChosen: boolean('period_chosen').notNull().default(false),
     /** accepted | needs-review | failing-criteria | insufficient-data */
     status: text('status').notNull(),
+    /** The shape in use: the engine's selection, or the analyst's override. */
     shape: text('shape'),
+    /** Set when an analyst chose the shape. */
+    overrideShape: text('override_shape'),
+    /** Why there is no model (insufficient-data): a typed reason from the engine. */
     reason: text('reason'),
+    r2: doublePrecision('r2'),
+    adjR2: doublePrecision('adj_r2'),
+    cvrmse: doublePrecision('cvrmse'),
+    /** Normalized annual consumption in the meter's unit, and in kBtu (energy) or gallons (water). */
+    nac: doublePrecision('nac'),
+    nacConverted: doublePrecision('nac_converted'),
+    /** The whole engine result: models of every shape, statistics, periods, acceptance. */
     fit: jsonb('fit').notNull().default(sql`'{}'::jsonb`),
     /** Hash of the bills and weather the fit was made from, to tell a stale fit. */
     inputHash: text('input_hash').notNull().default(''),
-    current: boolean('is_current').notNull().default(true),
     fittedAt: timestamp('fitted_at', { withTimezone: true }).notNull().defaultNow(),
     reviewedBy: text('reviewed_by'),
     reviewedAt: timestamp('reviewed_at', { withTimezone: true }),
     note: text('note').notNull().default(''),
   },
-  (t) => [index('baseline_building_idx').on(t.buildingId, t.commodity), index('baseline_installation_idx').on(t.installationId)],
+  (t) => [
+    uniqueIndex('baseline_meter_uq').on(t.meterId),
+    index('baseline_building_idx').on(t.buildingId, t.commodity),
+    index('baseline_installation_idx').on(t.installationId, t.status),
+  ],
 );
 
 export const baselineDecision = pgTable('baseline_decision', {
@@ -39,9 +64,12 @@ export const baselineDecision = pgTable('baseline_decision', {
     .references(() => baseline.id, { onDelete: 'cascade' }),
   userId: text('user_id'),
   actor: text('actor').notNull().default(''),
+  /** accept | override | reopen | period */
   action: text('action').notNull(),
   shape: text('shape'),
   note: text('note').notNull(),
+  /** The statistics the decision was taken on. */
+  details: jsonb('details').notNull().default(sql`'{}'::jsonb`),
   at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
 });
 

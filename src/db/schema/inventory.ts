@@ -41,6 +41,8 @@ export const installation = pgTable('installation', {
   targetBaselineFy: integer('target_baseline_fy'),
   targetReductionPct: doublePrecision('target_reduction_pct'),
   targetFy: integer('target_fy'),
+  /** Last time bills or weather of this installation changed: fits older than this are stale. */
+  dataChangedAt: timestamp('data_changed_at', { withTimezone: true }),
   createdAt: created(),
   updatedAt: updated(),
 });

@@ -19,8 +19,8 @@ export interface DailyTemperatures {
 
 export const dailyTemperatureRowSchema = z.object({
   date: isoDateSchema,
-  tmaxF: z.number().finite().nullable(),
-  tminF: z.number().finite().nullable(),
+  tmaxF: z.number().nullable(),
+  tminF: z.number().nullable(),
 });
 export type DailyTemperatureRow = z.infer<typeof dailyTemperatureRowSchema>;
 

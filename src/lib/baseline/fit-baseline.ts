@@ -12,7 +12,7 @@ import { BaselineEngine, fitOptionsSchema, type BaselineResult } from './engine'
 export const billSchema = z.object({
   start: isoDateSchema,
   end: isoDateSchema,
-  quantity: z.number().finite(),
+  quantity: z.number(),
 });
 export type Bill = z.infer<typeof billSchema>;
 

@@ -25,3 +25,4 @@ export * from './nac';
 export * from './savings-uncertainty';
 export * from './reporting-savings';
 export * from './series-summary';
+export * from './prepare';

@@ -23,12 +23,12 @@ import type { Window } from './windows';
 export const commodityUseSchema = z.object({
   commodity: commoditySchema,
   /** Site kBtu for energy commodities, gallons for water, within the window. */
-  quantity: z.number().finite(),
-  costUsd: z.number().finite().nullish(),
+  quantity: z.number(),
+  costUsd: z.number().nullish(),
   /** Days of the window covered by this commodity's bills (see coveredDays in ./windows.ts). */
   coveredDays: z.number().int().min(0),
   /** Normalized annual consumption from the accepted baseline, kBtu/yr (energy only). */
-  normalizedAnnualKbtu: z.number().finite().nullish(),
+  normalizedAnnualKbtu: z.number().nullish(),
   /** Standard uncertainty of that NAC, kBtu/yr (e.g. from the baseline's CV(RMSE)). */
   normalizedUncertaintyKbtu: z.number().min(0).nullish(),
 });
@@ -42,7 +42,7 @@ export const buildingUsageSchema = z.object({
 export type BuildingUsage = z.infer<typeof buildingUsageSchema>;
 
 /** A multiplier per energy commodity applied to site kBtu (a source-site ratio, kg CO2e/kBtu). */
-export const commodityFactorsSchema = z.partialRecord(commoditySchema, z.number().finite().min(0));
+export const commodityFactorsSchema = z.partialRecord(commoditySchema, z.number().min(0));
 export type CommodityFactors = Partial<Record<Commodity, number>>;
 
 export type IntensityUnit = 'kBtu/ft²·yr' | 'gal/ft²·yr' | '$/ft²·yr' | 'kg CO2e/ft²·yr';

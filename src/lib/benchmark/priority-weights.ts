@@ -32,7 +32,7 @@ export const PRIORITY_TERM_LABELS: Readonly<Record<PriorityTerm, string>> = {
   manualFlag: 'Flagged by a manager',
 };
 
-const weight = z.number().finite().min(0).max(1000);
+const weight = z.number().min(0).max(1000);
 
 export const priorityWeightsSchema = z
   .object({

@@ -34,17 +34,17 @@ export const priorityCandidateSchema = z.object({
   cbecsOverride: z.string().nullish(),
   areaFt2: z.number().positive(),
   /** Weather-normalized EUI, kBtu/ft²·yr; null when no accepted baseline. */
-  euiNormalized: z.number().finite().nullable(),
+  euiNormalized: z.number().nullable(),
   /** Blended energy price from the building's bills, $/kBtu. */
-  pricePerKbtu: z.number().finite().min(0).nullable(),
+  pricePerKbtu: z.number().min(0).nullable(),
   /** Normalized annual use this year and a year before, kBtu (same basis for both). */
-  yoy: z.object({ current: z.number().finite(), previous: z.number().finite() }).nullable(),
+  yoy: z.object({ current: z.number(), previous: z.number() }).nullable(),
   /** Recent bill periods tested against the baseline, and how many fell beyond 2 SE. */
   anomalies: z
     .object({
       recentPeriods: z.number().int().min(0),
       beyond2Se: z.number().int().min(0),
-      largestSe: z.number().finite().nullish(),
+      largestSe: z.number().nullish(),
     })
     .nullable(),
   /** Date of the last comprehensive energy and water evaluation; null when never. */

@@ -9,8 +9,8 @@ export const billRowSchema = z.object({
   startDay: z.number().int(),
   endDay: z.number().int(),
   /** null when the bill states no quantity. */
-  quantity: z.number().finite().nullable(),
-  cost: z.number().finite().nullable().optional(),
+  quantity: z.number().nullable(),
+  cost: z.number().nullable().optional(),
   estimated: z.boolean().optional(),
 });
 export type BillRow = z.infer<typeof billRowSchema>;

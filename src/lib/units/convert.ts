@@ -27,9 +27,9 @@ import {
 /** Per-meter heat contents. Both must be positive; steam has no default. */
 export const meterHeatContentSchema = z.object({
   /** Natural gas heat content in kBtu per cubic foot (the utility's therm factor / 100). */
-  gasKbtuPerCf: z.number().positive().finite().optional(),
+  gasKbtuPerCf: z.number().positive().optional(),
   /** District steam energy delivered, Btu per pound (supplier's stated value). */
-  steamBtuPerLb: z.number().positive().finite().optional(),
+  steamBtuPerLb: z.number().positive().optional(),
 });
 export type MeterHeatContent = z.infer<typeof meterHeatContentSchema>;
 

@@ -13,9 +13,9 @@ import { ENERGY_COMMODITIES, type EnergyCommodity, type SiteKbtuByCommodity, sit
 export const KG_PER_LB = 0.45359237;
 
 const perMmbtuSchema = z.object({
-  co2KgPerMmbtu: z.number().nonnegative().finite(),
-  ch4GPerMmbtu: z.number().nonnegative().finite(),
-  n2oGPerMmbtu: z.number().nonnegative().finite(),
+  co2KgPerMmbtu: z.number().nonnegative(),
+  ch4GPerMmbtu: z.number().nonnegative(),
+  n2oGPerMmbtu: z.number().nonnegative(),
   source: z.string().min(1),
 });
 /** A fuel's factors per MMBtu of (gross) heat input, or per MMBtu delivered for steam. */
@@ -23,9 +23,9 @@ export type PerMmbtuFactor = z.infer<typeof perMmbtuSchema>;
 
 export const ghgFactorsSchema = z.object({
   electricity: z.object({
-    co2LbPerMwh: z.number().nonnegative().finite(),
-    ch4LbPerMwh: z.number().nonnegative().finite(),
-    n2oLbPerMwh: z.number().nonnegative().finite(),
+    co2LbPerMwh: z.number().nonnegative(),
+    ch4LbPerMwh: z.number().nonnegative(),
+    n2oLbPerMwh: z.number().nonnegative(),
     source: z.string().min(1),
   }),
   fuels: z.partialRecord(z.enum(ENERGY_COMMODITIES), perMmbtuSchema),

@@ -12,7 +12,7 @@ import { ENERGY_COMMODITIES, type EnergyCommodity, type SiteKbtuByCommodity, sit
 export const sourceSiteRatiosSchema = z.object({
   /** Where the ratios come from, shown next to every source-energy figure. */
   source: z.string().min(1),
-  ratios: z.record(z.enum(ENERGY_COMMODITIES), z.number().positive().finite()),
+  ratios: z.record(z.enum(ENERGY_COMMODITIES), z.number().positive()),
 });
 export type SourceSiteRatios = z.infer<typeof sourceSiteRatiosSchema>;
 

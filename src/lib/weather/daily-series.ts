@@ -23,8 +23,8 @@ export interface DailyTemperatureSeries {
 /** One daily observation as it arrives at a boundary (CSV row, weather-service record). */
 export const dailyObservationSchema = z.object({
   date: z.string().refine((s) => dayFromIso(s) !== null, 'expected an existing YYYY-MM-DD date'),
-  tmax: z.number().finite().nullable(),
-  tmin: z.number().finite().nullable(),
+  tmax: z.number().nullable(),
+  tmin: z.number().nullable(),
 });
 export type DailyObservation = z.infer<typeof dailyObservationSchema>;
 

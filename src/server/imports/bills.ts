@@ -19,6 +19,7 @@ import type { Actor } from '../authz';
 import { analyzeRows, type Analysis, type ImportMeter, type ImportProblem } from './analyze';
 import { startProgress, touch, type ImportProgress } from './progress';
 import { BillRowStore, DateMemo } from './row-store';
+import { dataChanged } from '../baselines/run';
 import { loadExisting, writeImport } from './write';
 
 const gzipAsync = promisify(gzip);
@@ -271,6 +272,7 @@ export async function importBills(actor: Actor, req: BillImportRequest, ip = '')
   });
   lap('commit');
   touch(progress, { phase: 'done' });
+  if (result.counts.new + result.counts.changed > 0) await dataChanged([req.installation.id], 'bills imported');
   await logActivity({ action: 'import.commit', userId: actor.id, actor: actor.email, entityType: 'import', entityId: result.id, installationId: req.installation.id, ip, details: { file: req.fileName, counts: result.counts } });
   return result;
 }

@@ -9,6 +9,7 @@ import { logActivity } from '../activity';
 import { scopeToInstallations, type Actor } from '../authz';
 import { errors } from '../http';
 import { undoImport } from './write';
+import { dataChanged } from '../baselines/run';
 
 const gunzipAsync = promisify(gunzip);
 
@@ -73,6 +74,7 @@ export async function undoCommittedImport(actor: Actor, id: string, ip = '') {
     if (result.laterImport) throw errors.conflict(`A later import (${result.laterImport}) changed some of these bills. Undo that import first.`, { laterImport: result.laterImport });
     throw errors.conflict('This import is no longer committed.');
   }
+  if (current.installationId) await dataChanged([current.installationId], 'import undone');
   await logActivity({ action: 'import.undo', userId: actor.id, actor: actor.email, entityType: 'import', entityId: id, installationId: current.installationId, ip, details: { removed: result.removed, restored: result.restored } });
   return { ...(await getImport(actor, id)), removed: result.removed, restored: result.restored };
 }

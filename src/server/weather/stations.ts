@@ -21,13 +21,14 @@ import {
   type DegreeDayTable,
   type TemperatureUnit,
 } from '../../lib/weather';
-import { getDb } from '../../db/client';
+import { getDb, queryRows } from '../../db/client';
 import { importRun, installation, installationStation, weatherDay, weatherStation } from '../../db/schema';
 import { logActivity } from '../activity';
 import { can, installationByCode, type Actor } from '../authz';
 import { isUniqueViolation } from '../db-errors';
 import { errors, HttpError } from '../http';
 import { fetchDailySummaries } from './client';
+import { dataChanged } from '../baselines/run';
 
 /** Stations the actor may see: all for unscoped roles, those of their installations otherwise. */
 async function visibleStationIds(actor: Actor): Promise<string[] | null> {
@@ -131,14 +132,14 @@ async function storeDays(actor: Actor, station: { id: string; code: string }, da
     let changed = 0;
     for (let i = 0; i < days.length; i += 5000) {
       const chunk = days.slice(i, i + 5000);
-      const r = await tx.execute(sql`
+      const r = await queryRows<{ inserted: boolean }>(tx, sql`
         insert into weather_day (station_id, date, tmax_f, tmin_f, source, import_id)
         select ${station.id}::uuid, d, x, n, ${source}, ${run!.id}::uuid
           from unnest(${sql.param(chunk.map((d) => d.date))}::date[], ${sql.param(chunk.map((d) => d.tmaxF))}::float8[], ${sql.param(chunk.map((d) => d.tminF))}::float8[]) as u(d, x, n)
         on conflict (station_id, date) do update set tmax_f = excluded.tmax_f, tmin_f = excluded.tmin_f, source = excluded.source, import_id = excluded.import_id
           where weather_day.tmax_f is distinct from excluded.tmax_f or weather_day.tmin_f is distinct from excluded.tmin_f
         returning (xmax = 0) as inserted`);
-      for (const row of (r as unknown as { rows: { inserted: boolean }[] }).rows) {
+      for (const row of r) {
         if (row.inserted) inserted++;
         else changed++;
       }
@@ -147,6 +148,10 @@ async function storeDays(actor: Actor, station: { id: string; code: string }, da
     await tx.update(importRun).set({ counts }).where(eq(importRun.id, run!.id));
     return { id: run!.id, counts };
   });
+  if (result.counts.new + result.counts.changed > 0) {
+    const served = await db.select({ id: installationStation.installationId }).from(installationStation).where(eq(installationStation.stationId, station.id));
+    await dataChanged(served.map((s) => s.id), 'weather changed');
+  }
   await logActivity({ action: meta.kind === 'weather-csv' ? 'weather.import' : 'weather.fetch', userId: actor.id, actor: actor.email, entityType: 'weather-station', entityId: station.id, ip, details: { station: station.code, counts: result.counts, source: meta.source } });
   return { id: result.id, station: station.code, source: meta.source, counts: result.counts, problems };
 }

@@ -85,7 +85,7 @@ export const billSchema = z.object({
 export type DemoBill = z.infer<typeof billSchema>;
 
 export const personSchema = z.object({
-  email: z.string().email(),
+  email: z.email(),
   name: z.string(),
   role: roleSchema,
   installationCodes: z.array(z.string()),

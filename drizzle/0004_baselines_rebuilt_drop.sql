@@ -1,0 +1,2 @@
+DROP TABLE "baseline" CASCADE;--> statement-breakpoint
+DROP TABLE "baseline_decision" CASCADE;

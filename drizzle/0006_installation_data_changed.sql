@@ -1,0 +1,1 @@
+ALTER TABLE "installation" ADD COLUMN "data_changed_at" timestamp with time zone;
