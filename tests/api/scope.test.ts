@@ -132,6 +132,15 @@ const CASES: Record<string, RouteCase> = {
   // The demo stations have no weather-service id: refused on its merits (409) once authorized.
   'POST /api/weather/stations/[code]/fetch': { request: (s) => ({ path: `/api/weather/stations/${same(s).station}/fetch`, body: { start: '2026-01-01', end: '2026-01-31' } }), staff: { own: [409], foreign: [404] } },
   'GET /api/weather/degree-days': { request: (s) => ({ path: `/api/weather/degree-days?station=${same(s).station}&start=2025-01-01&end=2025-01-31&base=65` }), staff: { own: [200], foreign: [404] } },
+  'GET /api/baselines': { request: (s) => ({ path: `/api/baselines?installation=${same(s).installation}` }), staff: { own: [200], foreign: [403] } },
+  'GET /api/baselines/[buildingId]': { request: (s) => ({ path: `/api/baselines/${same(s).building}` }), staff: { own: [200], foreign: [404] } },
+  'GET /api/baselines/meter/[meterId]': { request: (s) => ({ path: `/api/baselines/meter/${same(s).meter}` }), staff: { own: [200], foreign: [404] } },
+  'GET /api/baselines/run': { request: () => ({ path: '/api/baselines/run' }), staff: { own: [200], foreign: [200] } },
+  'POST /api/baselines/run': { request: (s) => ({ path: '/api/baselines/run', body: { installation: same(s).installation } }), staff: { own: [403], foreign: [403] } },
+  'POST /api/baseline-decisions': { request: (s) => ({ path: '/api/baseline-decisions', body: { meterId: same(s).meter, action: 'accept', note: 'staff may not' } }), staff: { own: [403], foreign: [403] } },
+  'POST /api/baseline-periods': { request: (s) => ({ path: '/api/baseline-periods', body: { meterId: same(s).meter, start: '2023-01-01', end: '2024-06-30', note: 'staff may not' } }), staff: { own: [403], foreign: [403] } },
+  'GET /api/settings/baseline-acceptance': { request: () => ({ path: '/api/settings/baseline-acceptance' }), staff: { own: [200], foreign: [200] } },
+  'PUT /api/settings/baseline-acceptance': { request: () => ({ path: '/api/settings/baseline-acceptance', body: { maxCvrmse: 0.2, minPeriods: 12, minDays: 365 } }), staff: { own: [403], foreign: [403] } },
   'GET /api/outbox': { request: () => ({ path: '/api/outbox' }), staff: { own: [403], foreign: [403] } },
   'GET /api/activity': { request: () => ({ path: '/api/activity' }), staff: { own: [403], foreign: [403] } },
 };
