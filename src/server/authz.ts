@@ -120,9 +120,11 @@ export function requirePermission(locals: App.Locals, permission: Permission): A
  * A condition limiting `column` (an installation id column) to the actor's installations, for the
  * WHERE clause of every query on installation data. Undefined for unscoped roles.
  */
-export function scopeToInstallations(actor: Actor, column: AnyPgColumn): SQL | undefined {
+export function scopeToInstallations(actor: Actor, column: AnyPgColumn | SQL): SQL | undefined {
   if (!actor.scoped) return undefined;
   if (actor.installationIds.length === 0) return sql`false`;
+  // A raw column reference (for SQL with table aliases) compares against a uuid array parameter.
+  if (!('table' in column)) return sql`${column} = any(${sql.param([...actor.installationIds])}::uuid[])`;
   return inArray(column, [...actor.installationIds]);
 }
 

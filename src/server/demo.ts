@@ -23,6 +23,8 @@ export async function seedDemoIfEmpty(options: { today?: string } = {}): Promise
   }
   const { refitBaselines } = await import('./baselines/run');
   const fits = await refitBaselines({}, 'demo');
+  const { computeBuildingMetrics } = await import('./benchmark/metrics');
+  await computeBuildingMetrics({}, options.today ?? process.env.PLUMBLINE_DEMO_TODAY ?? new Date().toISOString().slice(0, 10));
   console.log(
     `[demo] fitted ${fits.fitted} baselines (${fits.failed} without a model) in ${fits.seconds.toFixed(1)} s; loaded region ${scenario.region.name}: ${scenario.installations.length} installations, ` +
       `${scenario.buildings.length} buildings, ${scenario.meters.length} meters, ${scenario.bills.length} bills ` +

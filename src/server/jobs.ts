@@ -25,8 +25,10 @@ export const JOBS: JobDefinition[] = [
     schedule: '30 2 * * *',
     async run() {
       const { refitBaselines } = await import('./baselines/run');
+      const { computeBuildingMetrics } = await import('./benchmark/metrics');
       const r = await refitBaselines({}, 'nightly');
-      return `${r.fitted} fitted, ${r.failed} without a model, ${r.seconds.toFixed(1)} s`;
+      const m = await computeBuildingMetrics();
+      return `${r.fitted} fitted, ${r.failed} without a model, ${r.seconds.toFixed(1)} s; metrics of ${m.buildings} buildings in ${m.seconds.toFixed(1)} s`;
     },
   },
 ];

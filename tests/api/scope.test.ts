@@ -141,6 +141,16 @@ const CASES: Record<string, RouteCase> = {
   'POST /api/baseline-periods': { request: (s) => ({ path: '/api/baseline-periods', body: { meterId: same(s).meter, start: '2023-01-01', end: '2024-06-30', note: 'staff may not' } }), staff: { own: [403], foreign: [403] } },
   'GET /api/settings/baseline-acceptance': { request: () => ({ path: '/api/settings/baseline-acceptance' }), staff: { own: [200], foreign: [200] } },
   'PUT /api/settings/baseline-acceptance': { request: () => ({ path: '/api/settings/baseline-acceptance', body: { maxCvrmse: 0.2, minPeriods: 12, minDays: 365 } }), staff: { own: [403], foreign: [403] } },
+  'GET /api/shortlist': { request: (s) => ({ path: `/api/shortlist?installation=${same(s).installation}&limit=5` }), staff: { own: [200], foreign: [200] } },
+  'GET /api/shortlist/weights': { request: () => ({ path: '/api/shortlist/weights' }), staff: { own: [200], foreign: [200] } },
+  'PUT /api/shortlist/weights': { request: () => ({ path: '/api/shortlist/weights', body: { excessEnergy: 1, excessCost: 1, yoyIncrease: 1, anomalies: 1, evaluationAge: 1, manualFlag: 1 } }), staff: { own: [403], foreign: [403] } },
+  'GET /api/shortlist/[buildingId]': { request: (s) => ({ path: `/api/shortlist/${same(s).building}` }), staff: { own: [200], foreign: [404] } },
+  'GET /api/flags': { request: () => ({ path: '/api/flags?open=1' }), staff: { own: [200], foreign: [200] } },
+  'POST /api/flags': { request: (s) => ({ path: '/api/flags', body: { buildingId: same(s).building, reason: 'staff may not flag' } }), staff: { own: [403], foreign: [403] } },
+  'DELETE /api/flags/[id]': { request: () => ({ path: '/api/flags/00000000-0000-4000-8000-000000000000' }), staff: { own: [403], foreign: [403] } },
+  'GET /api/targets': { request: () => ({ path: '/api/targets' }), staff: { own: [200], foreign: [200] } },
+  'PUT /api/targets/[code]': { request: (s) => ({ path: `/api/targets/${same(s).installation}`, body: { baselineFy: 2024, reductionPct: 30, targetFy: 2030 } }), staff: { own: [403], foreign: [403] } },
+  'GET /api/intensity': { request: (s) => ({ path: `/api/intensity?installation=${same(s).installation}` }), staff: { own: [200], foreign: [403] } },
   'GET /api/outbox': { request: () => ({ path: '/api/outbox' }), staff: { own: [403], foreign: [403] } },
   'GET /api/activity': { request: () => ({ path: '/api/activity' }), staff: { own: [403], foreign: [403] } },
 };
@@ -186,6 +196,13 @@ describe('lists hold only what the caller may see', () => {
     expect(b.body.items.length).toBeGreaterThan(0);
     expect(new Set(b.body.items.map((x: { installationCode: string }) => x.installationCode))).toEqual(new Set(['BNP']));
   });
+  it('installation staff see only their installation in the shortlist and intensity tables', async () => {
+    const sl = await call('staff', 'GET', '/api/shortlist?limit=500');
+    expect(new Set(sl.body.items.map((i: { installationCode: string }) => i.installationCode))).toEqual(new Set(['BNP']));
+    const it = await call('staff', 'GET', '/api/intensity');
+    expect(new Set(it.body.items.map((i: { installation: string }) => i.installation))).toEqual(new Set(['BNP']));
+  });
+
   it('the regional manager reads every installation', async () => {
     const inst = await call('manager', 'GET', '/api/installations');
     expect(inst.body.items.length).toBe(5);

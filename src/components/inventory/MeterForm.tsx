@@ -59,7 +59,7 @@ export default function MeterForm({ buildingId, suggestedCode }: { buildingId: s
           {({ id, describedBy, invalid }) => <input id={id} className="field-input" aria-describedby={describedBy} aria-invalid={invalid} {...register('account')} />}
         </Field>
         {(commodity === 'natural_gas' || commodity === 'district_steam') && (
-          <Field label={commodity === 'natural_gas' ? 'Heat content (kBtu per cf)' : 'Heat content (kBtu per lb)'} hint={commodity === 'natural_gas' ? 'Leave empty for the U.S. average, 1.036 kBtu/cf (EIA)' : 'As stated by the steam supplier'} required={commodity === 'district_steam'} error={msg(formState.errors.heatContentKbtuPerUnit)}>
+          <Field label={`Heat content (kBtu per ${watch('unit')})`} hint={commodity === 'natural_gas' ? 'As the utility states it per billing unit; leave empty for the U.S. average of 1.036 kBtu per cubic foot (EIA)' : 'As stated by the steam supplier, per billing unit'} required={commodity === 'district_steam'} error={msg(formState.errors.heatContentKbtuPerUnit)}>
             {({ id, describedBy, invalid }) => <input id={id} inputMode="decimal" className="field-input figure" aria-describedby={describedBy} aria-invalid={invalid} {...register('heatContentKbtuPerUnit', { setValueAs: (v) => (v === '' || v === null ? null : Number(v)) })} />}
           </Field>
         )}

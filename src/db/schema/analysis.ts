@@ -1,6 +1,6 @@
 /** Baselines, shortlist flags and ranking weights. */
 import { sql } from 'drizzle-orm';
-import { boolean, date, doublePrecision, index, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import { boolean, date, doublePrecision, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
 import { building, installation, meter, region } from './inventory';
 
 /**
@@ -100,3 +100,47 @@ export const rankingWeights = pgTable('ranking_weights', {
   updatedBy: text('updated_by'),
   updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
 });
+
+/**
+ * Intensities and audit-priority inputs per building, computed from bills and baselines by the
+ * metrics job (src/server/benchmark/metrics.ts) so that screens and rankings read them at once.
+ * Energy in site kBtu, water in gallons, money in dollars; `windowStart`–`windowEnd` is the
+ * 12-month window the main figures cover; `years` holds the same per federal fiscal year.
+ */
+export const buildingMetric = pgTable(
+  'building_metric',
+  {
+    buildingId: uuid('building_id')
+      .primaryKey()
+      .references(() => building.id, { onDelete: 'cascade' }),
+    installationId: uuid('installation_id')
+      .notNull()
+      .references(() => installation.id),
+    windowStart: date('window_start').notNull(),
+    windowEnd: date('window_end').notNull(),
+    areaFt2: doublePrecision('area_ft2').notNull(),
+    siteKbtu: doublePrecision('site_kbtu'),
+    siteEui: doublePrecision('site_eui'),
+    sourceEui: doublePrecision('source_eui'),
+    ghgKgPerFt2: doublePrecision('ghg_kg_per_ft2'),
+    euiNormalized: doublePrecision('eui_normalized'),
+    euiNormalizedUncertainty: doublePrecision('eui_normalized_uncertainty'),
+    /** True when some baseline behind the normalized EUI is not accepted yet. */
+    normalizedProvisional: boolean('normalized_provisional').notNull().default(false),
+    waterGal: doublePrecision('water_gal'),
+    wui: doublePrecision('wui'),
+    costUsd: doublePrecision('cost_usd'),
+    costIntensity: doublePrecision('cost_intensity'),
+    pricePerKbtu: doublePrecision('price_per_kbtu'),
+    /** Lowest share of the window covered by bills among the building's commodities, 0–1. */
+    coverage: doublePrecision('coverage'),
+    yoyCurrentKbtu: doublePrecision('yoy_current_kbtu'),
+    yoyPreviousKbtu: doublePrecision('yoy_previous_kbtu'),
+    anomalyPeriods: integer('anomaly_periods'),
+    anomalyBeyond: integer('anomaly_beyond'),
+    commodities: jsonb('commodities').notNull().default(sql`'{}'::jsonb`),
+    years: jsonb('years').notNull().default(sql`'{}'::jsonb`),
+    computedAt: timestamp('computed_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('building_metric_installation_idx').on(t.installationId)],
+);

@@ -101,9 +101,11 @@ export const meter = pgTable(
     commodity: text('commodity').notNull(),
     unit: text('unit').notNull(),
     account: text('account').notNull().default(''),
-    /** Heat content per unit where the utility states one (gas kBtu/cf, steam kBtu/lb). */
+    /** Heat content per billing unit where the utility states one (gas kBtu/ccf, steam kBtu/Mlb, …). */
     heatContentKbtuPerUnit: doublePrecision('heat_content_kbtu_per_unit'),
     active: boolean('active').notNull().default(true),
+    /** End of the latest bill, kept by the metrics job (data freshness). */
+    lastBillEnd: date('last_bill_end'),
     createdAt: created(),
     updatedAt: updated(),
   },

@@ -95,7 +95,7 @@ export const meterInputSchema = z
   })
   .refine((m) => m.commodity !== 'district_steam' || m.heatContentKbtuPerUnit !== null, {
     path: ['heatContentKbtuPerUnit'],
-    message: 'district steam needs the heat content the utility states (kBtu per lb)',
+    message: 'district steam needs the heat content the supplier states (kBtu per billing unit)',
   });
 export type MeterInput = z.infer<typeof meterInputSchema>;
 

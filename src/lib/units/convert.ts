@@ -158,3 +158,22 @@ export function toWaterGallons(quantity: number, commodity: Commodity, unit: Uni
   if (commodity !== 'water') return { ok: false, reason: 'not-water' };
   return convertQuantity(quantity, commodity, unit);
 }
+
+/**
+ * The heat content a meter states per unit it is billed in (kBtu per ccf, per Mlb, …) as the
+ * per-cubic-foot and per-pound values the conversions use. Gas billed by energy (therm, Dth,
+ * MMBtu) needs none.
+ * @example meterHeatContent('natural_gas', 'ccf', 103.1) // { gasKbtuPerCf: 1.031 }
+ */
+export function meterHeatContent(commodity: Commodity, unit: Unit, kbtuPerBillingUnit: number | null | undefined): MeterHeatContent {
+  if (!kbtuPerBillingUnit || !(kbtuPerBillingUnit > 0)) return {};
+  if (commodity === 'natural_gas') {
+    const cf = unit === 'cf' ? 1 : unit === 'ccf' ? CF_PER_CCF : unit === 'Mcf' ? CF_PER_MCF : null;
+    return cf === null ? {} : { gasKbtuPerCf: kbtuPerBillingUnit / cf };
+  }
+  if (commodity === 'district_steam') {
+    const lb = unit === 'lb' ? 1 : unit === 'Mlb' ? LB_PER_MLB : null;
+    return lb === null ? {} : { steamBtuPerLb: (kbtuPerBillingUnit * 1000) / lb };
+  }
+  return {};
+}

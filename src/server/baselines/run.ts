@@ -9,7 +9,7 @@ import { sql } from 'drizzle-orm';
 import { acceptanceThresholdsSchema, DEFAULT_ACCEPTANCE, defaultShapesFor, fillSingleMissingDays, prepareBaselineBills, type BaselineResult, type FitOptionsInput, type Shape } from '../../lib/baseline';
 import { getSetting } from '../settings';
 import type { Commodity, Unit } from '../../lib/domain';
-import { conversionFactor } from '../../lib/units/convert';
+import { conversionFactor, meterHeatContent } from '../../lib/units/convert';
 import { getDb, queryRows } from '../../db/client';
 import { bulkInsert } from '../../db/bulk';
 import { FitPool, type PoolSeries } from '../fit-pool';
@@ -143,7 +143,7 @@ export async function refitBaselines(scope: { installationIds?: string[]; meterI
     const heat = m.heat ?? undefined;
     const prepared = prepareBaselineBills(
       bills.map((b) => ({ startDay: b.s, endDay: b.e, quantity: b.q, unit: b.u, estimated: b.est })),
-      { commodity: m.commodity, unit: m.unit, heat: m.commodity === 'district_steam' && heat ? { steamBtuPerLb: heat * 1000 } : m.commodity === 'natural_gas' && heat ? { gasKbtuPerCf: heat } : {}, fromDay: from, toDay: to },
+      { commodity: m.commodity, unit: m.unit, heat: meterHeatContent(m.commodity, m.unit, heat), fromDay: from, toDay: to },
     );
     const shapes: Shape[] = prev?.overrideShape ? [prev.overrideShape as Shape] : defaultShapesFor(m.commodity);
     const hash = createHash('sha1')
@@ -198,7 +198,7 @@ export async function refitBaselines(scope: { installationIds?: string[]; meterI
       // An analyst's acceptance stands while the data it was given on have not changed.
       if (prev?.status === 'accepted' && prev.inputHash === job.hash && prev.shape === shape) status = 'accepted';
     }
-    const factor = conversionFactor(m.commodity, m.unit, m.commodity === 'natural_gas' && m.heat ? { gasKbtuPerCf: m.heat } : m.commodity === 'district_steam' && m.heat ? { steamBtuPerLb: m.heat * 1000 } : {});
+    const factor = conversionFactor(m.commodity, m.unit, meterHeatContent(m.commodity, m.unit, m.heat));
     const q = result.ok ? result.selected.quality : null;
     rows.push({
       meterId: m.id,
@@ -303,8 +303,11 @@ export async function runRefit(scope: { installationIds?: string[] } | 'all', tr
   Object.assign(run.state, { running: true, trigger, startedAt: new Date().toISOString(), finishedAt: null, error: null });
   run.current = (async () => {
     try {
-      const r = await refitBaselines(ids === 'all' ? {} : { installationIds: [...ids] }, trigger);
+      const scope = ids === 'all' ? {} : { installationIds: [...ids] };
+      const r = await refitBaselines(scope, trigger);
       run.state.last = { fitted: r.fitted, failed: r.failed, seconds: r.seconds };
+      const { computeBuildingMetrics } = await import('../benchmark/metrics');
+      await computeBuildingMetrics(scope);
     } catch (e) {
       run.state.error = (e as Error).message;
       console.error('[baselines] refit failed:', e);

@@ -10,6 +10,7 @@ import { refitBaselines, runState } from './run';
 
 const listColumns = {
   id: baseline.id,
+  installationId: baseline.installationId,
   meterId: baseline.meterId,
   meterCode: meter.code,
   buildingId: baseline.buildingId,
@@ -127,6 +128,8 @@ export async function decide(actor: Actor, d: BaselineDecision, ip = '') {
     note: d.note,
     details: statsOf({ ...after, inputHash: full?.inputHash ?? '' }),
   });
+  const { computeBuildingMetrics } = await import('../benchmark/metrics');
+  await computeBuildingMetrics({ installationIds: [current.installationId] });
   await logActivity({ action: `baseline.${d.action}`, userId: actor.id, actor: actor.email, entityType: 'meter', entityId: d.meterId, installationId: null, ip, details: { shape: after.shape } });
   return getBaseline(actor, d.meterId);
 }
@@ -138,6 +141,8 @@ export async function setPeriod(actor: Actor, p: BaselinePeriod, ip = '') {
   await db.update(baseline).set({ periodStart: p.start, periodEnd: p.end, periodChosen: true }).where(eq(baseline.id, current.id));
   await refitBaselines({ meterIds: [p.meterId] }, 'period chosen');
   const after = await getBaseline(actor, p.meterId);
+  const { computeBuildingMetrics } = await import('../benchmark/metrics');
+  await computeBuildingMetrics({ installationIds: [current.installationId] });
   await db.insert(baselineDecision).values({ baselineId: current.id, userId: actor.id, actor: actor.email, action: 'period', shape: after.shape, note: `${p.start} to ${p.end}: ${p.note}`, details: statsOf({ ...after, inputHash: '' }) });
   await logActivity({ action: 'baseline.period', userId: actor.id, actor: actor.email, entityType: 'meter', entityId: p.meterId, ip, details: { start: p.start, end: p.end } });
   return after;
