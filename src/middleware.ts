@@ -8,6 +8,7 @@ import { loadActor } from './server/actor';
 import { errorResponse, errors, HttpError } from './server/http';
 import { ensureRuntime } from './server/runtime';
 import { securityHeaders } from './server/security-headers';
+import { forgetSessions, readSnapshot, sessionCookieValue, snapshotGeneration, storeSnapshot } from './server/session-cache';
 import { trustedOrigins } from './server/config';
 
 const PUBLIC_PAGES = new Set(['/sign-in', '/forgot-password', '/reset-password']);
@@ -71,14 +72,25 @@ export const onRequest = defineMiddleware(async (ctx, next) => {
     const refusal = errors.forbidden('Cross-site requests are refused: send the request from Plumbline itself.');
     return securityHeaders(path.startsWith('/api/') ? errorResponse(refusal) : errorPage(403, refusal.message));
   }
+  const reading = SAFE_METHODS.has(ctx.request.method);
   if (!path.startsWith('/api/auth/') && !path.startsWith('/_astro/')) {
-    const auth = await getAuth();
-    const session = await auth.api.getSession({ headers: ctx.request.headers }).catch(() => null);
-    if (session) {
-      const age = (Date.now() - new Date(session.session.createdAt).getTime()) / 1000;
-      if (age <= SESSION_ABSOLUTE_SECONDS && !session.user.banned) {
-        ctx.locals.actor = await loadActor(session.user);
-        ctx.locals.sessionId = session.session.id;
+    const cookie = sessionCookieValue(ctx.request.headers);
+    const snapshot = cookie && reading ? readSnapshot(cookie) : null;
+    if (snapshot) {
+      ctx.locals.actor = snapshot.actor;
+      ctx.locals.sessionId = snapshot.sessionId;
+    } else if (cookie) {
+      const generation = snapshotGeneration();
+      const auth = await getAuth();
+      const session = await auth.api.getSession({ headers: ctx.request.headers }).catch(() => null);
+      if (session) {
+        const created = new Date(session.session.createdAt).getTime();
+        const ends = Math.min(created + SESSION_ABSOLUTE_SECONDS * 1000, new Date(session.session.expiresAt).getTime());
+        if (Date.now() < ends && !session.user.banned) {
+          ctx.locals.actor = await loadActor(session.user);
+          ctx.locals.sessionId = session.session.id;
+          if (ctx.locals.actor) storeSnapshot(cookie, generation, { actor: ctx.locals.actor, sessionId: session.session.id }, ends);
+        }
       }
     }
   }
@@ -90,7 +102,10 @@ export const onRequest = defineMiddleware(async (ctx, next) => {
   }
 
   try {
-    return securityHeaders(await next());
+    const response = await next();
+    // Sign-out, password changes and the account administration end or change sessions.
+    if (!reading && ((path.startsWith('/api/auth/') && !path.startsWith('/api/auth/sign-in/')) || path.startsWith('/api/users'))) forgetSessions();
+    return securityHeaders(response);
   } catch (e) {
     if (e instanceof HttpError) {
       if (path.startsWith('/api/')) return securityHeaders(errorResponse(e));

@@ -1,5 +1,4 @@
 /** Tables as spreadsheet downloads: CSV (RFC 4180) and XLSX (exceljs), formula-safe per OWASP. */
-import ExcelJS from 'exceljs';
 import { toCsv } from '../lib/export/to-csv';
 import { xlsxRows } from '../lib/export/xlsx-rows';
 import type { ExportColumn } from '../lib/export/columns';
@@ -20,6 +19,8 @@ export function csvResponse<R extends object>(name: string, columns: readonly Ex
 
 export async function xlsxResponse<R extends object>(name: string, sheet: string, columns: readonly ExportColumn<R>[], rows: readonly R[], note?: string): Promise<Response> {
   const data = xlsxRows(columns, rows);
+  // Loaded on the first spreadsheet asked for, not with every route that can export one.
+  const { default: ExcelJS } = await import('exceljs');
   const wb = new ExcelJS.Workbook();
   wb.creator = 'Plumbline';
   const ws = wb.addWorksheet(sheet.slice(0, 31));

@@ -38,6 +38,15 @@ export function json(data: unknown, init: ResponseInit = {}): Response {
   return new Response(JSON.stringify(data), { ...init, headers });
 }
 
+/** A JSON answer already serialized (UTF-8), e.g. from a cache. */
+export function jsonBytes(body: Uint8Array<ArrayBuffer>, init: ResponseInit = {}): Response {
+  const headers = new Headers(init.headers);
+  headers.set('content-type', 'application/json; charset=utf-8');
+  headers.set('content-length', String(body.byteLength));
+  headers.set('cache-control', 'no-store');
+  return new Response(body, { ...init, headers });
+}
+
 export function errorResponse(e: HttpError): Response {
   return json({ error: { code: e.code, message: e.message, details: e.details } }, { status: e.status });
 }

@@ -1,6 +1,6 @@
 /** Sign-in and landing per role, password reset by mail through the local SMTP server, admin screens. */
 import { describe, expect, it } from 'vitest';
-import { baseUrl, call, DEMO, signIn } from '../support/http';
+import { baseUrl, call, DEMO, freshAccount, signIn } from '../support/http';
 
 const LANDING: Record<keyof typeof DEMO, string> = {
   admin: '/',
@@ -132,5 +132,37 @@ describe('administration', () => {
     const r = await call('admin', 'POST', '/api/users', { email: `x.${Date.now()}@example.test`, name: 'Nobody Here', role: 'auditor', installations: ['NOPE'] });
     expect(r.status).toBe(400);
     expect(r.body.error.message).toMatch(/NOPE/);
+  });
+});
+
+describe('sessions end at once', () => {
+  // Reads may be served from a short in-process memory of verified sessions (src/server/session-cache.ts);
+  // these check that every way of ending a session still ends it for the very next read.
+  const me = (cookie: string) => fetch(`${baseUrl()}/api/me`, { headers: { cookie } }).then((r) => r.status);
+
+  it('blocking an account ends its session, reads included', async () => {
+    const account = await freshAccount('analyst');
+    expect(await me(account.cookie)).toBe(200);
+    expect(await me(account.cookie)).toBe(200);
+    const blocked = await call('admin', 'PATCH', `/api/users/${account.id}`, { banned: true });
+    expect(blocked.status).toBe(200);
+    expect(await me(account.cookie)).toBe(401);
+  });
+
+  it('a new installation assignment ends the session, so the new scope applies to the next read', async () => {
+    const account = await freshAccount('installation_staff', ['DMF']);
+    const before = await fetch(`${baseUrl()}/api/installations`, { headers: { cookie: account.cookie } }).then((r) => r.json());
+    expect(before.items.map((i: { code: string }) => i.code)).toEqual(['DMF']);
+    expect((await call('admin', 'PATCH', `/api/users/${account.id}`, { installations: ['FHS'] })).status).toBe(200);
+    expect(await me(account.cookie)).toBe(401);
+  });
+
+  it('signing out ends the session, reads included', async () => {
+    const account = await freshAccount('auditor', ['KSL']);
+    expect(await me(account.cookie)).toBe(200);
+    expect(await me(account.cookie)).toBe(200);
+    const out = await fetch(`${baseUrl()}/api/auth/sign-out`, { method: 'POST', headers: { cookie: account.cookie, origin: baseUrl(), 'content-type': 'application/json' }, body: '{}' });
+    expect(out.status).toBe(200);
+    expect(await me(account.cookie)).toBe(401);
   });
 });

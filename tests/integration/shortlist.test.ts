@@ -13,7 +13,7 @@ import type { DemoScenario } from '../../src/db/seed/scenario/types';
 import { refitBaselines } from '../../src/server/baselines/run';
 import { flagBuilding } from '../../src/server/benchmark/flags';
 import { computeBuildingMetrics, rollingWindowEnding } from '../../src/server/benchmark/metrics';
-import { saveWeights, shortlist } from '../../src/server/benchmark/shortlist';
+import { saveWeights, shortlist, shortlistJson } from '../../src/server/benchmark/shortlist';
 import { createUser } from '../../src/server/services/users';
 import { actor } from '../support/fixtures';
 
@@ -122,5 +122,52 @@ describe('the shortlist', () => {
     const r = await shortlist(staff, q, AS_OF);
     expect(new Set(r.items.map((i) => i.installationCode))).toEqual(new Set(['KSL']));
     expect(r.items[0]!.rank).toBe(1);
+  });
+});
+
+describe('the cached ranking', () => {
+  const counter = async () => {
+    const db = await getDb();
+    const [r] = await queryRows<{ v: string }>(db, sql`select version::text as v from change_counter where topic = 'ranking'`);
+    return Number(r!.v);
+  };
+
+  it('is raised by a change to what the ranking reads, and not by a bill import moving a meter\'s last bill date', async () => {
+    const db = await getDb();
+    const v0 = await counter();
+    await db.execute(sql`update meter set last_bill_end = last_bill_end where code = (select min(code) from meter)`);
+    expect(await counter()).toBe(v0);
+    await db.execute(sql`update meter set active = active where code = (select min(code) from meter)`);
+    expect(await counter()).toBe(v0 + 1);
+    await db.execute(sql`update building set name = name where number = (select min(number) from building)`);
+    expect(await counter()).toBe(v0 + 2);
+  });
+
+  it('a change rolled back leaves the counter as it was', async () => {
+    const db = await getDb();
+    const v0 = await counter();
+    await expect(
+      db.transaction(async (tx) => {
+        await tx.execute(sql`update building set name = name`);
+        throw new Error('abandon');
+      }),
+    ).rejects.toThrow('abandon');
+    expect(await counter()).toBe(v0);
+  });
+
+  it('answers the same bytes until something changes, then the new ranking', async () => {
+    const manager = await actor('regional_manager');
+    const query = { limit: 5000, offset: 0, explain: 0 };
+    const a = await shortlistJson(manager, query, AS_OF);
+    const b = await shortlistJson(manager, query, AS_OF);
+    expect(b).toBe(a);
+    const parsed = JSON.parse(new TextDecoder().decode(a)) as Awaited<ReturnType<typeof shortlist>>;
+    const last = parsed.items.at(-1)!;
+    expect(last.flag).toBeNull();
+    await flagBuilding(manager, { buildingId: last.buildingId, reason: 'Steam plume from the roof vent seen by the night shift' });
+    const c = JSON.parse(new TextDecoder().decode(await shortlistJson(manager, query, AS_OF))) as typeof parsed;
+    const moved = c.items.find((i) => i.buildingId === last.buildingId)!;
+    expect(moved.flag?.reason).toMatch(/Steam plume/);
+    expect(moved.rank).toBeLessThan(last.rank);
   });
 });

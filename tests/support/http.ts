@@ -76,3 +76,38 @@ export function fileForm(file: { name: string; text: string | Uint8Array; type?:
   for (const [k, v] of Object.entries(fields)) form.set(k, v);
   return form;
 }
+
+/** Waits for a message to `to` whose subject matches, received by the local SMTP server. */
+export async function waitForMail(to: string, subject: RegExp): Promise<{ to: string; subject: string; text: string; receivedAt: string | null }> {
+  for (let i = 0; i < 40; i++) {
+    const box = await call('admin', 'GET', '/api/outbox');
+    const mail = box.body.items.find((m: { to: string; subject: string; receivedAt: string | null }) => m.to === to && subject.test(m.subject) && m.receivedAt);
+    if (mail) return mail;
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new Error(`no mail to ${to} matching ${subject}`);
+}
+
+/** A fresh account (created by the admin) whose password is set through the reset mail. */
+export async function freshAccount(role: string, installations: string[] = [], password = 'a fresh test passphrase'): Promise<{ id: string; email: string; cookie: string }> {
+  const email = `${role}.${Date.now()}.${Math.round(Math.random() * 1e6)}@example.test`;
+  const created = await call('admin', 'POST', '/api/users', { email, name: 'Fresh Account', role, installations });
+  if (created.status !== 201) throw new Error(`create ${email}: ${created.status} ${JSON.stringify(created.body)}`);
+  const ask = await fetch(`${baseUrl()}/api/auth/request-password-reset`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', origin: baseUrl() },
+    body: JSON.stringify({ email, redirectTo: `${baseUrl()}/reset-password` }),
+  });
+  if (!ask.ok) throw new Error(`reset request ${ask.status}`);
+  const mail = await waitForMail(email, /Reset your Plumbline password/);
+  const link = /(http:\/\/\S+\/api\/auth\/reset-password\/\S+)/.exec(mail.text)![1]!;
+  const follow = await fetch(link, { redirect: 'manual' });
+  const token = new URL(follow.headers.get('location')!, baseUrl()).searchParams.get('token')!;
+  const set = await fetch(`${baseUrl()}/api/auth/reset-password`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', origin: baseUrl() },
+    body: JSON.stringify({ token, newPassword: password }),
+  });
+  if (!set.ok) throw new Error(`reset ${set.status}`);
+  return { id: created.body.id, email, cookie: await signIn(email, password) };
+}

@@ -47,3 +47,15 @@ export const jobRun = pgTable(
   },
   (t) => [index('job_run_job_idx').on(t.job, t.startedAt)],
 );
+
+/**
+ * A counter per topic that triggers raise in the same transaction as the change they count
+ * (drizzle/0008): a cache keyed on it (the audit shortlist) stays right across processes and
+ * costs one primary-key read per request to check. Topic `ranking`: building, meter (its
+ * commodity, building, active flag), installation, building_metric, building_flag, ranking_weights.
+ */
+export const changeCounter = pgTable('change_counter', {
+  topic: text('topic').primaryKey(),
+  version: bigint('version', { mode: 'number' }).notNull().default(0),
+  changedAt: timestamp('changed_at', { withTimezone: true }).notNull().defaultNow(),
+});

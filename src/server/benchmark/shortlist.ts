@@ -67,7 +67,10 @@ interface Ranking {
   candidates: Candidate[];
   scores: PriorityScores;
   weights: PriorityWeights;
+  /** Serialized JSON answers already sent for this ranking, by query. */
+  bodies: Map<string, Uint8Array<ArrayBuffer>>;
 }
+const MAX_BODIES = 32;
 type Holder = typeof globalThis & { [KEY]?: Map<string, Ranking> };
 const cache = ((globalThis as Holder)[KEY] ??= new Map());
 
@@ -90,16 +93,44 @@ export async function saveWeights(actor: Actor, weights: PriorityWeights, ip = '
   await logActivity({ action: 'shortlist.weights', userId: actor.id, actor: actor.email, ip, details: { weights } });
 }
 
+/**
+ * What the cached ranking depends on: the `ranking` change counter (raised by triggers in the same
+ * transaction as any change to buildings, meters, metrics, flags or weights; drizzle/0009) and the
+ * actor's scope.
+ */
 async function version(actor: Actor): Promise<string> {
+  return `${await rankingCounter()}|${actor.scoped ? actor.installationIds.join(',') : 'all'}`;
+}
+
+/**
+ * The counter, read at most once at a time: callers that arrive while a read is running share the
+ * next one, which starts after they arrived and so sees every change committed before they did.
+ */
+const COUNTER = Symbol.for('plumbline.ranking-counter');
+type CounterHolder = typeof globalThis & { [COUNTER]?: { running: Promise<string> | null; next: Promise<string> | null } };
+const counter = ((globalThis as CounterHolder)[COUNTER] ??= { running: null, next: null });
+
+async function readCounter(): Promise<string> {
   const db = await getDb();
-  const [v] = await queryRows<{ m: string | null; f: string | null; w: string | null; b: string | null }>(
-    db,
-    sql`select (select max(computed_at)::text from building_metric) as m,
-               (select max(greatest(flagged_at, coalesce(cleared_at, flagged_at)))::text || count(*)::text from building_flag) as f,
-               (select max(updated_at)::text from ranking_weights) as w,
-               (select max(updated_at)::text from building) as b`,
-  );
-  return `${v?.m}|${v?.f}|${v?.w}|${v?.b}|${actor.scoped ? actor.installationIds.join(',') : 'all'}`;
+  const [v] = await queryRows<{ v: string | null }>(db, sql`select version::text as v from change_counter where topic = 'ranking'`);
+  return v?.v ?? '0';
+}
+
+function rankingCounter(): Promise<string> {
+  if (!counter.running) {
+    const run: Promise<string> = readCounter().finally(() => {
+      if (counter.running === run) counter.running = null;
+    });
+    counter.running = run;
+    return run;
+  }
+  counter.next ??= counter.running
+    .catch(() => undefined)
+    .then(() => {
+      counter.next = null;
+      return rankingCounter();
+    });
+  return counter.next;
 }
 
 async function candidates(actor: Actor): Promise<Candidate[]> {
@@ -145,17 +176,41 @@ export interface ShortlistQuery {
   explain: number;
 }
 
-/** The ranked shortlist the actor may see, filtered and paged; breakdowns for the first `explain` rows returned. */
-export async function shortlist(actor: Actor, q: ShortlistQuery, asOf = new Date().toISOString().slice(0, 10)) {
+async function ranking(actor: Actor, asOf: string): Promise<Ranking> {
   const v = `${await version(actor)}|${asOf}`;
   let entry = cache.get(v);
   if (!entry) {
     const { updatedAt: _u, ...weights } = await getWeights();
     const list = await candidates(actor);
-    entry = { candidates: list, scores: scorePriority(list, weights, { asOf }), weights };
+    entry = { candidates: list, scores: scorePriority(list, weights, { asOf }), weights, bodies: new Map() };
     if (cache.size > 50) cache.clear();
     cache.set(v, entry);
   }
+  return entry;
+}
+
+/** The ranked shortlist the actor may see, filtered and paged; breakdowns for the first `explain` rows returned. */
+export async function shortlist(actor: Actor, q: ShortlistQuery, asOf = new Date().toISOString().slice(0, 10)) {
+  return slice(await ranking(actor, asOf), q, asOf);
+}
+
+/**
+ * The same answer as `shortlist`, serialized as JSON (UTF-8). Identical queries against an
+ * unchanged ranking are answered from the bytes sent before.
+ */
+export async function shortlistJson(actor: Actor, q: ShortlistQuery, asOf = new Date().toISOString().slice(0, 10)): Promise<Uint8Array<ArrayBuffer>> {
+  const entry = await ranking(actor, asOf);
+  const key = JSON.stringify([q.installation, q.useType, q.commodity, q.minAreaFt2, q.maxAreaFt2, q.limit, q.offset, q.explain]);
+  let body = entry.bodies.get(key);
+  if (!body) {
+    body = new TextEncoder().encode(JSON.stringify(slice(entry, q, asOf)));
+    if (entry.bodies.size >= MAX_BODIES) entry.bodies.delete(entry.bodies.keys().next().value!);
+    entry.bodies.set(key, body);
+  }
+  return body;
+}
+
+function slice(entry: Ranking, q: ShortlistQuery, asOf: string) {
   const { candidates: list, scores } = entry;
   const keep = (row: Row) =>
     (!q.installation || row.installation_code === q.installation) &&
@@ -202,8 +257,7 @@ export async function shortlist(actor: Actor, q: ShortlistQuery, asOf = new Date
 
 /** One building's place and breakdown in the actor's shortlist (for the building page). */
 export async function shortlistEntry(actor: Actor, buildingId: string, asOf = new Date().toISOString().slice(0, 10)) {
-  await shortlist(actor, { limit: 0, offset: 0, explain: 0 }, asOf);
-  const entry = cache.get(`${await version(actor)}|${asOf}`)!;
+  const entry = await ranking(actor, asOf);
   const i = entry.candidates.findIndex((c: Candidate) => c.buildingId === buildingId);
   if (i < 0) return null;
   return { rank: entry.scores.rank[i]!, of: entry.scores.n, score: entry.scores.score[i]!, breakdown: priorityBreakdown(entry.candidates, entry.scores, i, asOf) };

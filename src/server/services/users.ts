@@ -2,6 +2,7 @@
  * Accounts: admins create them (no public sign-up), set roles and installation assignments, and
  * block them. A new account gets a mail with a link to choose its password.
  */
+import { forgetSessions } from '../session-cache';
 import { randomBytes } from 'node:crypto';
 import { asc, eq, inArray } from 'drizzle-orm';
 import type { Role } from '../../lib/domain';
@@ -103,6 +104,7 @@ export async function updateUser(actor: Actor, id: string, patch: UserPatch, ip 
       await tx.delete(session).where(eq(session.userId, id));
     }
   });
+  forgetSessions();
   if (patch.role && patch.role !== current.role)
     await logActivity({ action: 'user.role-change', userId: actor.id, actor: actor.email, entityType: 'user', entityId: id, ip, details: { email: current.email, from: current.role, to: patch.role as Role } });
   if (patch.installations !== undefined)

@@ -3,9 +3,9 @@ import type { ExportColumn } from '../../../lib/export/columns';
 import { shortlistQuerySchema } from '../../../lib/schemas/shortlist';
 import { logActivity } from '../../../server/activity';
 import { can, requirePermission } from '../../../server/authz';
-import { shortlist, type ShortlistItem } from '../../../server/benchmark/shortlist';
+import { shortlist, shortlistJson, type ShortlistItem } from '../../../server/benchmark/shortlist';
 import { csvResponse, xlsxResponse } from '../../../server/export';
-import { endpoint, errors, json, readQuery } from '../../../server/http';
+import { endpoint, errors, jsonBytes, readQuery } from '../../../server/http';
 
 type ExportRow = Omit<ShortlistItem, 'breakdown' | 'flag' | 'commodities'> & { reasons: string; flagged: string; useTypeLabel: string };
 const COLUMNS: ExportColumn<ExportRow>[] = [
@@ -35,7 +35,7 @@ const COLUMNS: ExportColumn<ExportRow>[] = [
 export const GET = endpoint(async (ctx) => {
   const actor = requirePermission(ctx.locals, 'shortlist:read');
   const q = readQuery(ctx, shortlistQuerySchema);
-  if (q.format === 'json') return json(await shortlist(actor, q));
+  if (q.format === 'json') return jsonBytes(await shortlistJson(actor, q));
   if (!can(actor, 'exports')) throw errors.forbidden('Your role may not export.');
   const all = await shortlist(actor, { ...q, limit: 20_000, offset: 0, explain: 20_000 });
   const rows: ExportRow[] = all.items.map(({ breakdown, flag, commodities: _c, ...r }) => ({
