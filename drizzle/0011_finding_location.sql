@@ -1,0 +1,1 @@
+ALTER TABLE "finding" ADD COLUMN "location" text DEFAULT '' NOT NULL;
