@@ -8,6 +8,7 @@ import { loadActor } from './server/actor';
 import { errorResponse, errors, HttpError } from './server/http';
 import { ensureRuntime } from './server/runtime';
 import { securityHeaders } from './server/security-headers';
+import { CONTROL_HEADER, controlActor } from './server/control';
 import { forgetSessions, readSnapshot, sessionCookieValue, snapshotGeneration, storeSnapshot } from './server/session-cache';
 import { trustedOrigins } from './server/config';
 
@@ -73,7 +74,9 @@ export const onRequest = defineMiddleware(async (ctx, next) => {
     return securityHeaders(path.startsWith('/api/') ? errorResponse(refusal) : errorPage(403, refusal.message));
   }
   const reading = SAFE_METHODS.has(ctx.request.method);
-  if (!path.startsWith('/api/auth/') && !path.startsWith('/_astro/')) {
+  const control = ctx.request.headers.has(CONTROL_HEADER) ? controlActor(path, ctx.request.headers, ctx.clientAddress) : null;
+  if (control) ctx.locals.actor = control;
+  else if (!path.startsWith('/api/auth/') && !path.startsWith('/_astro/')) {
     const cookie = sessionCookieValue(ctx.request.headers);
     const snapshot = cookie && reading ? readSnapshot(cookie) : null;
     if (snapshot) {

@@ -3,6 +3,7 @@
  * `fit` works on files alone; `import` and `weather` open the database (stop the server first
  * when it runs on the embedded database: one process at a time).
  */
+import { backupCommand, restoreCommand } from './commands/backup';
 import { fitCommand } from './commands/fit';
 import { importCommand } from './commands/import';
 import { weatherCommand } from './commands/weather';
@@ -10,6 +11,8 @@ import { weatherCommand } from './commands/weather';
 const commands: Record<string, { run: (argv: string[], out: NodeJS.WritableStream) => Promise<number>; help: string }> = {
   fit: { run: fitCommand, help: 'fit --bills <csv> --weather <csv> [--json] [--workers N]   weather-normalized baselines from files' },
   import: { run: importCommand, help: 'import <file> --installation <code> [--map field=Header,...] [--dry-run] [--json]   bills into the database' },
+  backup: { run: backupCommand, help: 'backup <file.tar.gz> [--json]   database, files and secret (the running server takes it, or this command when it is stopped)' },
+  restore: { run: restoreCommand, help: 'restore <file.tar.gz> [--force] [--json]   into the stopped data folder, or the DATABASE_URL database' },
   weather: { run: weatherCommand, help: 'weather <file> --station <code> [--units standard|metric] [--json]   daily temperatures into the database' },
 };
 

@@ -36,6 +36,7 @@ export const PERMISSIONS = [
   'outbox:read',
   'activity:read',
   'settings:write',
+  'backups',
 ] as const;
 export type Permission = (typeof PERMISSIONS)[number];
 

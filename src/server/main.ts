@@ -14,6 +14,7 @@ import { appBaseUrl } from './config';
 import { ensureLocalSmtp, stopLocalSmtp } from './mail/local-smtp';
 import { ensureRuntime } from './runtime';
 import { stopJobs } from './jobs';
+import { removeControlFile, writeControlFile } from './control';
 
 async function main(): Promise<void> {
   process.env.ASTRO_TELEMETRY_DISABLED ??= '1';
@@ -44,6 +45,7 @@ async function main(): Promise<void> {
     stopping = true;
     console.log(`\n[plumbline] ${signal}: stopping`);
     stopJobs();
+    removeControlFile();
     await stopLocalSmtp().catch(() => undefined);
     await closeDatabase().catch((e) => console.error(e));
     process.exit(0);
@@ -52,6 +54,7 @@ async function main(): Promise<void> {
   process.on('SIGTERM', () => void stop('SIGTERM'));
 
   await import(pathToFileURL(entry).href);
+  writeControlFile(appBaseUrl());
   console.log(`[plumbline] serving ${appBaseUrl()} · database ${db.kind} at ${db.location}`);
 }
 

@@ -64,6 +64,7 @@ const CASES: Record<string, RouteCase> = {
   'GET /api/health': { public: true, request: () => ({ path: '/api/health' }), staff: { own: [200], foreign: [200] } },
   'ALL /api/auth/[...all]': { public: true, request: () => ({ path: '/api/auth/get-session' }), staff: { own: [200], foreign: [200] } },
   'GET /api/me': { request: () => ({ path: '/api/me' }), staff: { own: [200], foreign: [200] } },
+  'POST /api/admin/backup': { request: () => ({ path: '/api/admin/backup', body: {} }), staff: { own: [403], foreign: [403] } },
   'GET /api/installations': { request: () => ({ path: '/api/installations' }), staff: { own: [200], foreign: [200] } },
   'POST /api/installations': {
     request: (s) => ({ path: '/api/installations', body: { code: s === 'own' ? 'ZZOWN' : 'ZZFOR', name: 'Nope', timeZone: 'UTC' } }),

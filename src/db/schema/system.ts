@@ -44,9 +44,22 @@ export const jobRun = pgTable(
     /** running | ok | failed | skipped */
     status: text('status').notNull(),
     detail: text('detail').notNull().default(''),
+    /** The scheduled time this run was elected for (null for a run started by hand). */
+    slot: timestamp('slot', { withTimezone: true }),
   },
   (t) => [index('job_run_job_idx').on(t.job, t.startedAt)],
 );
+
+/**
+ * One row per scheduled run of a job, claimed by the first instance to insert it: with several
+ * instances on one database, each schedule slot of a job runs once (node-cron's distributed
+ * coordinator, src/server/jobs.ts). Key: `<job>:<slot ISO time>`.
+ */
+export const jobClaim = pgTable('job_claim', {
+  key: text('key').primaryKey(),
+  instance: text('instance').notNull(),
+  claimedAt: timestamp('claimed_at', { withTimezone: true }).notNull().defaultNow(),
+});
 
 /**
  * A counter per topic that triggers raise in the same transaction as the change they count
