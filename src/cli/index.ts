@@ -6,6 +6,7 @@
 import { backupCommand, restoreCommand } from './commands/backup';
 import { fitCommand } from './commands/fit';
 import { importCommand } from './commands/import';
+import { userCommand } from './commands/user';
 import { weatherCommand } from './commands/weather';
 
 const commands: Record<string, { run: (argv: string[], out: NodeJS.WritableStream) => Promise<number>; help: string }> = {
@@ -13,6 +14,7 @@ const commands: Record<string, { run: (argv: string[], out: NodeJS.WritableStrea
   import: { run: importCommand, help: 'import <file> --installation <code> [--map field=Header,...] [--dry-run] [--json]   bills into the database' },
   backup: { run: backupCommand, help: 'backup <file.tar.gz> [--json]   database, files and secret (the running server takes it, or this command when it is stopped)' },
   restore: { run: restoreCommand, help: 'restore <file.tar.gz> [--force] [--json]   into the stopped data folder, or the DATABASE_URL database' },
+  user: { run: userCommand, help: 'user add --email <address> --name <name> --role <role> [--installations A,B]   an account (e.g. the first admin)' },
   weather: { run: weatherCommand, help: 'weather <file> --station <code> [--units standard|metric] [--json]   daily temperatures into the database' },
 };
 

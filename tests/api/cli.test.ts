@@ -45,6 +45,19 @@ describe.skipIf(!template)('plumbline import / weather', () => {
     expect(r.stdout).toMatch(/Station BNPWX: 2 days read, 2 added/);
   });
 
+  it('user add creates an account, sends the welcome mail and prints its link; a bad role is refused', () => {
+    const ok = cli(join(dir, 'db'), 'user', 'add', '--email', 'new.lead@example.test', '--name', 'New Lead', '--role', 'admin');
+    expect(ok.status, ok.stderr).toBe(0);
+    expect(ok.stdout).toMatch(/^Created admin new\.lead@example\.test/);
+    expect(ok.stdout).toMatch(/https?:\/\/\S+/);
+    const again = cli(join(dir, 'db'), 'user', 'add', '--email', 'new.lead@example.test', '--name', 'New Lead', '--role', 'admin');
+    expect(again.status).toBe(2);
+    expect(again.stderr).toMatch(/already/i);
+    const bad = cli(join(dir, 'db'), 'user', 'add', '--email', 'x@example.test', '--name', 'X', '--role', 'wizard');
+    expect(bad.status).toBe(2);
+    expect(bad.stderr).toMatch(/role/);
+  });
+
   it('bad arguments get the usage line and exit code 2', () => {
     const r = cli(join(dir, 'db'), 'import', csv);
     expect(r.status).toBe(2);
