@@ -2,4 +2,5 @@
 export * from './walkthrough-report';
 export * from './roll-up';
 export * from './buildingsync';
+export * from './stored-economics';
 export { technologyFor, resourceUnits, guideline14ModelType, FUEL_TYPE, OCCUPANCY_CLASSIFICATION, IMPLEMENTATION_STATUS } from './buildingsync-codes';

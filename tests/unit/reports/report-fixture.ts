@@ -4,23 +4,14 @@
  * several commodities, and a minimal one with no findings and an empty form.
  */
 import { emptyWalkthroughForm } from '../../../src/lib/field/walkthrough-form';
-import { measureEconomics } from '../../../src/lib/economics';
-import type { ReportEconomics, WalkthroughReportInput } from '../../../src/lib/reports';
+import { computeReportEconomics, type ReportEconomics, type WalkthroughReportInput } from '../../../src/lib/reports';
 
 /** Economics of a measure at a 3 % real rate, as the app stores them with the rate's date and source. */
 export function economicsAt3(installedCostUsd: number, incentivesUsd: number, energyUsd: number, waterUsd: number, omUsd: number, lifeYears: number): ReportEconomics {
-  const r = measureEconomics.run({ installedCostUsd, incentivesUsd, annualEnergySavingsUsd: energyUsd, annualWaterSavingsUsd: waterUsd, annualOmSavingsUsd: omUsd, lifeYears, discountRatePercent: 3 });
-  if (!r.ok) throw new Error(r.message);
-  return {
-    simplePaybackYears: r.value.simplePaybackYears,
-    sir: r.value.sir,
-    airrPercent: r.value.airrPercent,
-    pvSavingsUsd: r.value.pvSavingsUsd,
-    netSavingsUsd: r.value.netSavingsUsd,
-    discountRatePercent: 3,
-    rateEffectiveFrom: '2010-04-01',
-    rateSource: 'constructed test rate',
-  };
+  const figures = { id: '', title: '', status: 'proposed' as const, savings: [], implementedOn: null, installedCostUsd, incentivesUsd, annualEnergyCostSavingsUsd: energyUsd, annualWaterCostSavingsUsd: waterUsd, annualOmCostSavingsUsd: omUsd, lifeYears };
+  const e = computeReportEconomics(figures, { realDiscountRatePercent: 3, effectiveFrom: '2010-04-01', source: 'constructed test rate' });
+  if (!e) throw new Error('invalid constructed measure');
+  return e;
 }
 
 export function fullReport(): WalkthroughReportInput {
