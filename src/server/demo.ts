@@ -5,7 +5,7 @@
 import { count, eq } from 'drizzle-orm';
 import { getDb } from '../db/client';
 import { appSetting, region } from '../db/schema';
-import { loadScenarioData } from '../db/seed/load';
+import { loadFieldData, loadScenarioData } from '../db/seed/load';
 import { generateDemoScenario } from '../db/seed/scenario';
 import { DEMO_PASSWORD } from './config';
 import { createUser } from './services/users';
@@ -21,6 +21,8 @@ export async function seedDemoIfEmpty(options: { today?: string } = {}): Promise
   for (const p of scenario.people) {
     await createUser(null, { email: p.email, name: p.name, role: p.role, installations: p.installationCodes }, DEMO_PASSWORD);
   }
+  // Kits, loans, flags and walkthroughs name people: loaded once their accounts exist.
+  await db.transaction((tx) => loadFieldData(tx, scenario));
   const { refitBaselines } = await import('./baselines/run');
   const fits = await refitBaselines({}, 'demo');
   const { computeBuildingMetrics } = await import('./benchmark/metrics');

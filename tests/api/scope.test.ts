@@ -4,6 +4,7 @@
  * an entry here fails the test.
  */
 import { beforeAll, describe, expect, it } from 'vitest';
+import { generateDemoScenario } from '../../src/db/seed/scenario';
 import { apiRoutes } from '../support/routes';
 import { call, fileForm, type CallResult } from '../support/http';
 
@@ -60,6 +61,9 @@ interface RouteCase {
 }
 
 const same = (side: Side) => fx[side];
+// Demo walkthroughs have fixed ids (the test server loads the demo with today = 2026-11-30).
+const demoWalkthroughs = generateDemoScenario({ today: '2026-11-30' }).field.walkthroughs;
+const walkthroughOf = (side: Side) => demoWalkthroughs.find((w) => w.installationCode === same(side).installation)!.id;
 const CASES: Record<string, RouteCase> = {
   'GET /api/health': { public: true, request: () => ({ path: '/api/health' }), staff: { own: [200], foreign: [200] } },
   'ALL /api/auth/[...all]': { public: true, request: () => ({ path: '/api/auth/get-session' }), staff: { own: [200], foreign: [200] } },
@@ -154,6 +158,8 @@ const CASES: Record<string, RouteCase> = {
   'GET /api/intensity': { request: (s) => ({ path: `/api/intensity?installation=${same(s).installation}` }), staff: { own: [200], foreign: [403] } },
   'GET /api/outbox': { request: () => ({ path: '/api/outbox' }), staff: { own: [403], foreign: [403] } },
   'GET /api/activity': { request: () => ({ path: '/api/activity' }), staff: { own: [403], foreign: [403] } },
+  'GET /api/walkthroughs/[id]/buildingsync': { request: (s) => ({ path: `/api/walkthroughs/${walkthroughOf(s)}/buildingsync` }), staff: { own: [200], foreign: [404] } },
+  'GET /api/walkthroughs/[id]/report.pdf': { request: (s) => ({ path: `/api/walkthroughs/${walkthroughOf(s)}/report.pdf` }), staff: { own: [200], foreign: [404] } },
 };
 
 function methodOf(route: string): string {

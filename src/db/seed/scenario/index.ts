@@ -14,7 +14,8 @@ import { meterBuilding, type MeteredBuilding } from './building-meters';
 import { planBuildings } from './buildings';
 import { INSTALLATIONS, REGION, type InstallationSpec } from './climates';
 import { civilToDay, dayToCivil, dayToIso, federalFiscalYear, isoToDay } from './dates';
-import { dailyMeans, degreeDayNormals } from './degree-days';
+import { dailyMeans, degreeDayNormals, type DegreeDayNormals } from './degree-days';
+import { generateFieldData } from './field';
 import { applyMessyData } from './messy';
 import { unitPrice } from './meters';
 import { demoPeople } from './people';
@@ -56,6 +57,7 @@ export function generateDemoScenario(options: ScenarioOptions = {}): DemoScenari
   const truthMeters: Record<string, MeterTruth> = {};
   const drafts = new Map<string, DraftBill[]>();
   const metered: MeteredBuilding[] = [];
+  const normalsBySite = new Map<string, DegreeDayNormals>();
   let firstBillDay = Number.POSITIVE_INFINITY;
 
   for (const site of INSTALLATIONS) {
@@ -64,6 +66,7 @@ export function generateDemoScenario(options: ScenarioOptions = {}): DemoScenari
     const dropouts = chooseDropouts(weatherRng, complete, weatherFirst + 30, billsFrom - 30, 6);
     stations.push({ ...site.station, climate: site.climate, days: publishWeather(complete, dropouts) });
     const normals = degreeDayNormals(complete, todayYear);
+    normalsBySite.set(site.code, normals);
     const means = dailyMeans(complete);
 
     for (const planned of planBuildings(site, new Rng(opts.seed, `buildings:${site.code}`), today)) {
@@ -123,6 +126,17 @@ export function generateDemoScenario(options: ScenarioOptions = {}): DemoScenari
 
   const retrofit = metered.find((m) => m.retrofit)?.retrofit;
   if (!retrofit) throw new Error('the retrofit building was not generated');
+  const truth = {
+    meters: truthMeters,
+    retrofit,
+    poorPerformers: metered.flatMap((m) => (m.poorPerformer ? [m.poorPerformer] : [])),
+    messy,
+  };
+  const hddNormal = (code: string, baseF: number): number => {
+    const n = normalsBySite.get(code);
+    if (!n) throw new Error(`no normals for ${code}`);
+    return n.hdd(baseF);
+  };
   return {
     region: { code: REGION.code, name: REGION.name },
     stations,
@@ -131,12 +145,8 @@ export function generateDemoScenario(options: ScenarioOptions = {}): DemoScenari
     meters,
     bills,
     people: demoPeople(),
-    truth: {
-      meters: truthMeters,
-      retrofit,
-      poorPerformers: metered.flatMap((m) => (m.poorPerformer ? [m.poorPerformer] : [])),
-      messy,
-    },
+    truth,
+    field: generateFieldData(opts.seed, { today, buildings, meters, truth, hddNormal }),
   };
 }
 

@@ -5,6 +5,7 @@
  */
 import { z } from 'zod';
 import { commoditySchema, roleSchema, unitSchema, useTypeSchema } from '../../../lib/domain';
+import { demoFieldSchema } from './field-types';
 
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'expected an ISO date YYYY-MM-DD');
 
@@ -167,5 +168,7 @@ export const demoScenarioSchema = z.object({
     poorPerformers: z.array(poorPerformerSchema),
     messy: z.array(messyItemSchema),
   }),
+  /** Kits, loans, flags and walkthroughs (field-types.ts), loaded after the accounts. */
+  field: demoFieldSchema,
 });
 export type DemoScenario = z.infer<typeof demoScenarioSchema>;
