@@ -1,25 +1,27 @@
 /**
  * Response headers per OWASP ASVS 4.0.3 14.4: a Content-Security-Policy, no framing, no MIME
- * sniffing, a same-origin referrer policy. Astro's island hydration uses inline scripts, so
- * script-src allows them; nothing is loaded from any other origin.
+ * sniffing, a same-origin referrer policy. Pages get their policy from Astro (astro.config.mjs:
+ * the hashes of the scripts it rendered); every other response (API answers, error pages,
+ * redirects) gets this one, which allows no inline script at all.
  */
-const CSP = [
-  "default-src 'self'",
-  "script-src 'self' 'unsafe-inline'",
-  "style-src 'self' 'unsafe-inline'",
-  "img-src 'self' data: blob:",
-  "font-src 'self'",
-  "connect-src 'self'",
-  "object-src 'none'",
-  "base-uri 'self'",
-  "form-action 'self'",
-  "frame-ancestors 'none'",
-].join('; ');
+import { CSP_DIRECTIVES } from './csp';
+
+const CSP = [...CSP_DIRECTIVES, "script-src 'self'", "style-src 'self' 'unsafe-inline'"].join('; ');
+
+/**
+ * Astro lists the hashes of its own inline <style> elements in style-src; a listed hash switches
+ * 'unsafe-inline' off, which would block the style attributes of server-rendered islands. Style
+ * hashes are dropped so that styles stay 'self' 'unsafe-inline' while scripts keep their hashes.
+ */
+export function relaxStyleHashes(policy: string): string {
+  return policy.replace(/style-src([^;]*)/, (_m, sources: string) => `style-src${sources.replace(/\s+'sha(256|384|512)-[^']*'/g, '')}`);
+}
 
 export function securityHeaders(res: Response): Response {
   try {
     const h = res.headers;
-    if (!h.has('content-security-policy')) h.set('content-security-policy', CSP);
+    const fromAstro = h.get('content-security-policy');
+    h.set('content-security-policy', fromAstro ? relaxStyleHashes(fromAstro) : CSP);
     h.set('x-content-type-options', 'nosniff');
     h.set('x-frame-options', 'DENY');
     h.set('referrer-policy', 'same-origin');

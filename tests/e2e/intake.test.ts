@@ -7,7 +7,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { base, hasBrowser, launch, signInAs } from '../support/browser';
+import { base, hasBrowser, islandsReady, launch, signInAs } from '../support/browser';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -38,6 +38,7 @@ describe.skipIf(!hasBrowser)('bill intake in the browser', () => {
     const page = await context.newPage();
     await signInAs(page, 'staff@demo.plumbline.test');
     await page.goto(`${base()}/intake`);
+    await islandsReady(page);
     await page.setInputFiles('#intake-file', file);
     await page.getByRole('heading', { name: '2. Which column is what' }).waitFor();
     // The suggested mapping picked the columns from their headers.

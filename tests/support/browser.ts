@@ -26,8 +26,17 @@ export const base = () => inject('baseUrl');
 /** Signs in through the form, as a person would. */
 export async function signInAs(page: Page, email: string, password = 'plumbline-demo-2026'): Promise<void> {
   await page.goto(`${base()}/sign-in`);
+  await islandsReady(page);
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
+}
+
+/**
+ * Waits until every island that hydrates on load has done so (Astro removes `ssr` from an island
+ * once it has); islands that wait to be scrolled into view are left as rendered.
+ */
+export async function islandsReady(page: Page): Promise<void> {
+  await page.waitForFunction(() => !document.querySelector('astro-island[ssr]:not([client="visible"])'), undefined, { timeout: 30_000 });
 }

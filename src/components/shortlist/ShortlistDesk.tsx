@@ -170,8 +170,8 @@ function Desk({ installations, canWeights, canFlag }: { installations: { code: s
           <div role="row" className="grid grid-cols-[3.5rem_4rem_1fr_7rem_7rem_8rem_7rem_7rem] gap-x-2 border-b border-ink-200 bg-ink-50 px-3 py-2 text-xs font-semibold uppercase tracking-wide text-ink-600">
             <span role="columnheader">Rank</span><span role="columnheader">Score</span><span role="columnheader">Building</span><span role="columnheader" className="text-right">EUI / peer</span><span role="columnheader" className="text-right">Excess kBtu</span><span role="columnheader" className="text-right">Excess $/yr</span><span role="columnheader">Evaluated</span><span role="columnheader"><span className="sr-only">Actions</span></span>
           </div>
-          <div ref={parent} className="max-h-[32rem] overflow-auto" tabIndex={0} aria-label="Scroll the list">
-            <div style={{ height: v.getTotalSize(), position: 'relative' }}>
+          <div ref={parent} role="rowgroup" className="max-h-[32rem] overflow-auto" tabIndex={0} aria-label="Ranked buildings (scrolls)">
+            <div role="presentation" style={{ height: v.getTotalSize(), position: 'relative' }}>
               {v.getVirtualItems().map((vi) => {
                 const i = rows[vi.index]!;
                 return (
