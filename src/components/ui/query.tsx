@@ -1,12 +1,16 @@
-/** TanStack Query: one client per page, shared by every island on it. */
+/**
+ * TanStack Query: in the browser one client per page, shared by every island on it. On the server
+ * every render gets a new client: a client kept by the process would carry one person's data (an
+ * island's initial data) into the page of the next.
+ */
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import type { ReactNode } from 'react';
 import { ApiError } from './api';
 
 let client: QueryClient | undefined;
 
-export function queryClient(): QueryClient {
-  client ??= new QueryClient({
+function newClient(): QueryClient {
+  return new QueryClient({
     defaultOptions: {
       queries: {
         staleTime: 30_000,
@@ -15,6 +19,11 @@ export function queryClient(): QueryClient {
       },
     },
   });
+}
+
+export function queryClient(): QueryClient {
+  if (typeof window === 'undefined') return newClient();
+  client ??= newClient();
   return client;
 }
 
