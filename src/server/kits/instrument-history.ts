@@ -6,22 +6,15 @@
  */
 import { and, asc, eq, inArray } from 'drizzle-orm';
 import { getDb } from '../../db/client';
-import { activityLog, installation, instrument, loan, loanEvent } from '../../db/schema';
+import { activityLog, installation, instrument, loan, loanEvent, user } from '../../db/schema';
 import { formatDate } from '../../lib/format';
+import type { HistoryEntry } from '../../lib/kits/api-types';
 import { CONDITION_LABELS, type InstrumentCondition } from '../../lib/kits/kit-readiness';
 import { formatRange } from '../../lib/kits/loan-dates';
 import { LOAN_STATUS_LABELS, type LoanStatus } from '../../lib/kits/loan-states';
 import type { Actor } from '../authz';
 import { errors } from '../http';
 import { loanRef, seesLoan } from './loan-rows';
-
-export interface HistoryEntry {
-  at: string;
-  kind: 'created' | 'moved' | 'calibration' | 'condition' | 'updated' | 'loan';
-  text: string;
-  by: string | null;
-  loan: { id: string; ref: string; start: string; end: string; status: LoanStatus } | null;
-}
 
 type Details = Record<string, unknown>;
 const str = (v: unknown): string | null => (typeof v === 'string' && v ? v : null);
@@ -52,8 +45,9 @@ export async function instrumentHistory(actor: Actor, id: string): Promise<Histo
   const [cur] = await db.select({ kitId: instrument.kitId }).from(instrument).where(eq(instrument.id, id));
   if (!cur) throw errors.notFound('No instrument with this id.');
   const log = await db
-    .select({ at: activityLog.at, action: activityLog.action, actor: activityLog.actor, details: activityLog.details })
+    .select({ at: activityLog.at, action: activityLog.action, actor: activityLog.actor, name: user.name, details: activityLog.details })
     .from(activityLog)
+    .leftJoin(user, eq(user.id, activityLog.userId))
     .where(and(eq(activityLog.entityType, 'instrument'), eq(activityLog.entityId, id)))
     .orderBy(asc(activityLog.at), asc(activityLog.id));
 
@@ -70,7 +64,7 @@ export async function instrumentHistory(actor: Actor, id: string): Promise<Histo
   const entries: HistoryEntry[] = [];
   for (const e of log) {
     const d = describe(e.action, e.details as Details);
-    if (d) entries.push({ at: e.at.toISOString(), ...d, by: e.actor || null, loan: null });
+    if (d) entries.push({ at: e.at.toISOString(), ...d, by: e.name || e.actor || null, loan: null });
   }
   if (kitIds.length) {
     const loans = await db

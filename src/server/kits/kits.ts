@@ -6,7 +6,8 @@
 import { and, asc, eq, gte, inArray, lte, ne, or } from 'drizzle-orm';
 import { getDb } from '../../db/client';
 import { installation, instrument, kit, loan } from '../../db/schema';
-import { calibrationStatus, type CalibrationStatus } from '../../lib/kits/calibration';
+import type { CalendarEntry, KitDetail, KitFields, KitInstrument, KitSummary } from '../../lib/kits/api-types';
+import { calibrationStatus } from '../../lib/kits/calibration';
 import { kitProblems } from '../../lib/kits/kit-readiness';
 import { addDays, formatRange, rangesOverlap, todayIn } from '../../lib/kits/loan-dates';
 import { HOLDING_STATUSES, LOAN_STATUS_LABELS, OUT_STATUSES, type LoanStatus } from '../../lib/kits/loan-states';
@@ -16,39 +17,6 @@ import type { Actor } from '../authz';
 import { isUniqueViolation } from '../db-errors';
 import { errors } from '../http';
 import { loanRef, seesLoan } from './loan-rows';
-
-export interface KitInstrument {
-  id: string;
-  kitId: string | null;
-  type: string;
-  model: string;
-  serial: string;
-  calibrationDue: string | null;
-  condition: string;
-  notes: string;
-  /** On today's date (UTC). */
-  calibration: CalibrationStatus;
-}
-
-export interface KitSummary {
-  id: string;
-  code: string;
-  name: string;
-  description: string;
-  homeLocation: string;
-  active: boolean;
-  instruments: KitInstrument[];
-  instrumentTypes: string[];
-  /** For the range asked for: null without a range. */
-  available: boolean | null;
-  /** Why the kit is not available for the range (empty otherwise). */
-  unavailableBecause: string[];
-  /** Every instrument within calibration today. */
-  calibrationOk: boolean;
-  /** The loan holding the kit today, or the next one (dates and status only). */
-  now: { start: string; end: string; status: LoanStatus } | null;
-  next: { start: string; end: string; status: LoanStatus } | null;
-}
 
 export const utcToday = () => todayIn('UTC');
 
@@ -63,7 +31,7 @@ export const instrumentColumns = {
   notes: instrument.notes,
 };
 
-const kitFields = (k: typeof kit.$inferSelect) => ({ id: k.id, code: k.code, name: k.name, description: k.description, homeLocation: k.homeLocation, active: k.active });
+const kitFields = (k: typeof kit.$inferSelect): KitFields => ({ id: k.id, code: k.code, name: k.name, description: k.description, homeLocation: k.homeLocation, active: k.active });
 
 type InstrumentRecord = Omit<KitInstrument, 'calibration'>;
 const withCalibration = (i: InstrumentRecord, today: string): KitInstrument => ({ ...i, calibration: calibrationStatus(i.calibrationDue, today) });
@@ -132,16 +100,8 @@ export async function listKits(_actor: Actor, range?: { from: string; to: string
   });
 }
 
-export interface CalendarEntry {
-  start: string;
-  end: string;
-  status: LoanStatus;
-  /** The loan's details when the caller may see its installation; null otherwise (dates only). */
-  loan: { id: string; ref: string; purpose: string; installationCode: string | null } | null;
-}
-
 /** One kit, its instruments, and the loans on its calendar between `from` and `to`. */
-export async function getKit(actor: Actor, id: string, window: { from?: string | undefined; to?: string | undefined } = {}) {
+export async function getKit(actor: Actor, id: string, window: { from?: string | undefined; to?: string | undefined } = {}): Promise<KitDetail> {
   const db = await getDb();
   const [k] = await db.select().from(kit).where(eq(kit.id, id));
   if (!k) throw errors.notFound('No kit with this id.');

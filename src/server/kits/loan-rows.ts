@@ -5,9 +5,12 @@
 import { eq } from 'drizzle-orm';
 import { installation, kit, loan, user, walkthrough } from '../../db/schema';
 import type { Db, Tx } from '../../db/client';
+import type { LoanRow } from '../../lib/kits/api-types';
 import { movesFor, isOut, LOAN_STATUS_LABELS, type LoanStatus } from '../../lib/kits/loan-states';
 import { loanDays } from '../../lib/kits/loan-dates';
 import { can, inScope, type Actor } from '../authz';
+
+export type { LoanRow };
 
 export const loanColumns = {
   id: loan.id,
@@ -49,29 +52,6 @@ export type LoanRecord = Awaited<ReturnType<typeof selectLoans>>[number];
 /** The short reference people quote for a loan (the first eight hex digits of its id). */
 export function loanRef(id: string): string {
   return id.slice(0, 8).toUpperCase();
-}
-
-export interface LoanRow {
-  id: string;
-  ref: string;
-  kitId: string;
-  kitCode: string;
-  kitName: string;
-  installationCode: string | null;
-  walkthrough: { id: string; title: string; plannedOn: string | null } | null;
-  requestedBy: { id: string; name: string } | null;
-  purpose: string;
-  start: string;
-  end: string;
-  days: number;
-  status: LoanStatus;
-  statusLabel: string;
-  /** Out (shipped or in use) after its last day. */
-  overdue: boolean;
-  createdAt: string;
-  updatedAt: string;
-  /** What the caller may do next: `{ to, verb }`. */
-  moves: { to: LoanStatus; verb: string }[];
 }
 
 /**

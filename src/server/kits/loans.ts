@@ -8,7 +8,9 @@
 import { and, asc, desc, eq, gte, inArray, lte, type SQL } from 'drizzle-orm';
 import { getDb } from '../../db/client';
 import { installation, kit, loan, loanEvent, walkthrough } from '../../db/schema';
+import type { LoanEventRow } from '../../lib/kits/api-types';
 import { checkLoanDates, formatRange, todayIn } from '../../lib/kits/loan-dates';
+import type { LoanStatus } from '../../lib/kits/loan-states';
 import type { LoanRequest, LoansQuery } from '../../lib/kits/schemas';
 import { logActivity } from '../activity';
 import { installationByCode, scopeToInstallations, type Actor } from '../authz';
@@ -117,7 +119,7 @@ export async function loanRecord(actor: Actor, id: string): Promise<LoanRecord> 
 }
 
 /** One loan with its events (who moved it, when, with which note). */
-export async function getLoan(actor: Actor, id: string) {
+export async function getLoan(actor: Actor, id: string): Promise<LoanRow & { events: LoanEventRow[] }> {
   const db = await getDb();
   const r = await loanRecord(actor, id);
   const events = await db
@@ -125,5 +127,5 @@ export async function getLoan(actor: Actor, id: string) {
     .from(loanEvent)
     .where(eq(loanEvent.loanId, id))
     .orderBy(asc(loanEvent.at), asc(loanEvent.id));
-  return { ...toLoanRow(actor, r, utcToday()), events: events.map((e) => ({ ...e, at: e.at.toISOString() })) };
+  return { ...toLoanRow(actor, r, utcToday()), events: events.map((e) => ({ ...e, from: e.from as LoanStatus | null, to: e.to as LoanStatus, at: e.at.toISOString() })) };
 }
