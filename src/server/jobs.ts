@@ -49,6 +49,26 @@ export const JOBS: JobDefinition[] = [
       return `${sessions.length} expired sessions, ${tokens.length} expired tokens removed`;
     },
   },
+  {
+    // Kit library: a reminder a day for each loan out past its last day (src/server/kits/reminders.ts).
+    name: 'loan-overdue',
+    schedule: '0 7 * * *',
+    async run() {
+      const { sendOverdueReminders } = await import('./kits/reminders');
+      const r = await sendOverdueReminders();
+      return `${r.loans} overdue loans, ${r.mails} mails`;
+    },
+  },
+  {
+    // Kit library: one mail per instrument when its calibration falls due within 30 days, one when it has passed.
+    name: 'calibration-reminders',
+    schedule: '15 7 * * *',
+    async run() {
+      const { sendCalibrationReminders } = await import('./kits/reminders');
+      const r = await sendCalibrationReminders();
+      return `${r.instruments} instruments announced, ${r.mails} mails`;
+    },
+  },
 ];
 
 const instance = `${hostname()}:${process.pid}`;

@@ -18,10 +18,19 @@ interface SideFixture {
   committed: string;
   mapping: string;
 }
+interface KitFixture {
+  kit: string;
+  instrument: string;
+  /** A kit only the loan requests of this test use. */
+  requestKit: string;
+  /** Loans requested by BNP's staff (own) and for KSL (foreign). */
+  loan: { own: string; foreign: string };
+}
 interface Fixture {
   own: SideFixture;
   foreign: SideFixture;
   staffUserId: string;
+  kits: KitFixture;
 }
 let fx: Fixture;
 
@@ -47,8 +56,21 @@ beforeAll(async () => {
       mapping: mapping.body.id,
     };
   };
-  fx = { own: await pick('BNP'), foreign: await pick('KSL'), staffUserId: users.find((u) => u.email === 'staff@demo.plumbline.test')!.id };
+  fx = { own: await pick('BNP'), foreign: await pick('KSL'), staffUserId: users.find((u) => u.email === 'staff@demo.plumbline.test')!.id, kits: await kitFixture() };
 });
+
+/** Kits are region-wide; loans belong to an installation. Dates well ahead of the demo's. */
+async function kitFixture(): Promise<KitFixture> {
+  const tag = String(Date.now() % 1_000_000);
+  const kit = (await call('custodian', 'POST', '/api/kits', { code: `SCOPE-${tag}`, name: 'Scope test kit' })).body.id;
+  const requestKit = (await call('custodian', 'POST', '/api/kits', { code: `SCOPE-R-${tag}`, name: 'Scope request kit' })).body.id;
+  const instrument = (await call('custodian', 'POST', '/api/instruments', { kitId: kit, type: 'light_meter', serial: `SC-${tag}` })).body.id;
+  await call('custodian', 'POST', '/api/instruments', { kitId: requestKit, type: 'flashlight', serial: `SCR-${tag}` });
+  const own = (await call('staff', 'POST', '/api/loans', { kitId: kit, start: loanDay(200), end: loanDay(201), purpose: 'Scope test (BNP)' })).body.id;
+  const foreign = (await call('admin', 'POST', '/api/loans', { kitId: kit, start: loanDay(210), end: loanDay(211), purpose: 'Scope test (KSL)', installation: 'KSL' })).body.id;
+  return { kit, instrument, requestKit, loan: { own, foreign } };
+}
+const loanDay = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
 
 type Side = 'own' | 'foreign';
 interface RouteCase {
@@ -156,6 +178,23 @@ const CASES: Record<string, RouteCase> = {
   'GET /api/targets': { request: () => ({ path: '/api/targets' }), staff: { own: [200], foreign: [200] } },
   'PUT /api/targets/[code]': { request: (s) => ({ path: `/api/targets/${same(s).installation}`, body: { baselineFy: 2024, reductionPct: 30, targetFy: 2030 } }), staff: { own: [403], foreign: [403] } },
   'GET /api/intensity': { request: (s) => ({ path: `/api/intensity?installation=${same(s).installation}` }), staff: { own: [200], foreign: [403] } },
+  // Kit library: kits and instruments are region-wide (read by all, changed by custodians only);
+  // loans belong to an installation.
+  'GET /api/kits': { request: () => ({ path: '/api/kits' }), staff: { own: [200], foreign: [200] } },
+  'POST /api/kits': { request: (s) => ({ path: '/api/kits', body: { code: `NOPE-${s}`, name: 'Staff may not' } }), staff: { own: [403], foreign: [403] } },
+  'GET /api/kits/[id]': { request: () => ({ path: `/api/kits/${fx.kits.kit}` }), staff: { own: [200], foreign: [200] } },
+  'PATCH /api/kits/[id]': { request: () => ({ path: `/api/kits/${fx.kits.kit}`, body: { name: 'Staff may not' } }), staff: { own: [403], foreign: [403] } },
+  'GET /api/instruments': { request: () => ({ path: '/api/instruments' }), staff: { own: [200], foreign: [200] } },
+  'POST /api/instruments': { request: () => ({ path: '/api/instruments', body: { kitId: fx.kits.kit, type: 'camera', serial: 'NOPE-1' } }), staff: { own: [403], foreign: [403] } },
+  'GET /api/instruments/[id]': { request: () => ({ path: `/api/instruments/${fx.kits.instrument}` }), staff: { own: [200], foreign: [200] } },
+  'PATCH /api/instruments/[id]': { request: () => ({ path: `/api/instruments/${fx.kits.instrument}`, body: { condition: 'retired' } }), staff: { own: [403], foreign: [403] } },
+  'GET /api/loans': { request: () => ({ path: `/api/loans?kit=${fx.kits.kit}` }), staff: { own: [200], foreign: [200] } },
+  'POST /api/loans': {
+    request: (s) => ({ path: '/api/loans', body: { kitId: fx.kits.requestKit, start: loanDay(220), end: loanDay(221), purpose: 'Scope test request', installation: same(s).installation } }),
+    staff: { own: [201], foreign: [403] },
+  },
+  'GET /api/loans/[id]': { request: (s) => ({ path: `/api/loans/${fx.kits.loan[s]}` }), staff: { own: [200], foreign: [404] } },
+  'POST /api/loans/[id]/transition': { request: (s) => ({ path: `/api/loans/${fx.kits.loan[s]}/transition`, body: { to: 'cancelled', note: 'scope test' } }), staff: { own: [200], foreign: [404] } },
   'GET /api/outbox': { request: () => ({ path: '/api/outbox' }), staff: { own: [403], foreign: [403] } },
   'GET /api/activity': { request: () => ({ path: '/api/activity' }), staff: { own: [403], foreign: [403] } },
   'GET /api/walkthroughs/[id]/buildingsync': { request: (s) => ({ path: `/api/walkthroughs/${walkthroughOf(s)}/buildingsync` }), staff: { own: [200], foreign: [404] } },
@@ -213,6 +252,13 @@ describe('lists hold only what the caller may see', () => {
   it('the regional manager reads every installation', async () => {
     const inst = await call('manager', 'GET', '/api/installations');
     expect(inst.body.items.length).toBe(5);
+  });
+  it('installation staff list only their installation’s loans; the custodian lists all', async () => {
+    const staff = await call('staff', 'GET', `/api/loans?kit=${fx.kits.kit}`);
+    expect(staff.body.items.map((l: { id: string }) => l.id)).toContain(fx.kits.loan.own);
+    expect(new Set(staff.body.items.map((l: { installationCode: string }) => l.installationCode))).toEqual(new Set(['BNP']));
+    const custodian = await call('custodian', 'GET', `/api/loans?kit=${fx.kits.kit}`);
+    expect(custodian.body.items.map((l: { id: string }) => l.id)).toEqual(expect.arrayContaining([fx.kits.loan.own, fx.kits.loan.foreign]));
   });
   it('an auditor sees the two installations assigned', async () => {
     const inst = await call('auditor', 'GET', '/api/installations');
