@@ -22,7 +22,7 @@ export const PHOTO_EXTENSIONS: Record<PhotoType, string> = {
 };
 
 /** Thumbnails are made by the browser (canvas → JPEG or WebP) and kept small. */
-export const THUMB_MAX_BYTES = 512 * 1024;
+export const THUMB_MAX_BYTES = 192 * 1024; // fits in the upload's room for form fields (src/server/upload.ts)
 export const THUMB_TYPES: readonly PhotoType[] = ['image/jpeg', 'image/png', 'image/webp'];
 
 const HEIF_BRANDS = new Set(['heic', 'heix', 'hevc', 'hevx', 'heim', 'heis', 'mif1', 'msf1']);

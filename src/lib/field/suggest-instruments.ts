@@ -1,6 +1,7 @@
 /**
  * Which instruments to bring to a walkthrough, read from the building's signature: the stored
- * baseline models (base load, heating and cooling slopes per square foot, balance points), its
+ * baseline models (base load, heating and cooling slopes per square foot, the heating fuel used
+ * at normal weather per square foot — slope and balance point together — balance points), its
  * water intensity against peers, lighting and occupancy hours and equipment ages from earlier
  * walkthroughs, its fuels and its age. Each suggestion carries the reasons in words, with the
  * figure and the threshold that triggered it.
@@ -43,7 +44,7 @@ export interface EquipmentAge {
 }
 
 export interface BuildingSignature {
-  /** Plural noun for peers in sentences, e.g. "offices". */
+  /** The peers in a sentence, plural: e.g. "peer offices", "office buildings in your reach". */
   peerNoun: string;
   yearBuilt: number | null;
   /** The year the suggestion is made in (for equipment ages). */
@@ -55,6 +56,8 @@ export interface BuildingSignature {
   baseLoadShare: number | null;
   /** Σ heating slopes of the energy meters, Btu/ft² per heating degree day. */
   heatingSlope: PeerFigure | null;
+  /** Heating fuel used because of the weather in a normal year (normal-year use less base load), kBtu/ft²·yr. */
+  heatingFuelIntensity: PeerFigure | null;
   heatingBalanceF: number | null;
   /** Σ cooling slopes, Btu/ft² per cooling degree day. */
   coolingSlope: PeerFigure | null;
@@ -109,7 +112,7 @@ function highAgainstPeers(f: PeerFigure | null, digits: number, noun: string): s
   if (!f || f.peerMedian === null || f.peers < MIN_PEERS || !(f.peerMedian > 0)) return null;
   const ratio = f.value / f.peerMedian;
   if (ratio < PEER_RATIO_HIGH) return null;
-  return `${formatNumber(ratio, 1)}× the median of ${f.peers} peer ${noun} (${formatNumber(f.peerMedian, digits)})`;
+  return `${formatNumber(ratio, 1)}× the median of ${f.peers} ${noun} (${formatNumber(f.peerMedian, digits)})`;
 }
 
 function peersMissing(f: PeerFigure | null): boolean {
@@ -142,18 +145,22 @@ export function suggestInstruments(s: BuildingSignature): InstrumentSuggestions 
   } else if (peersMissing(s.electricBaseLoad) && s.baseLoadShare !== null && s.baseLoadShare >= BASE_LOAD_SHARE_HIGH) {
     add(['plug_in_power_meter', 'clamp_ammeter'], `${formatNumber(s.baseLoadShare * 100, 0)} % of the energy does not depend on the weather (threshold ${BASE_LOAD_SHARE_HIGH * 100} %): measure the loads that run all the time.`);
   }
-  if (peersMissing(s.electricBaseLoad)) notChecked.push(`Electric base load not compared: fewer than ${MIN_PEERS} peer ${s.peerNoun} with a baseline.`);
+  if (peersMissing(s.electricBaseLoad)) notChecked.push(`Electric base load not compared: fewer than ${MIN_PEERS} ${s.peerNoun} with a baseline.`);
   if (!s.electricBaseLoad && s.commodities.includes('electricity')) notChecked.push('Electric base load unknown: the electricity meter has no baseline model yet.');
 
   // Heating: envelope and combustion.
-  const heat = highAgainstPeers(s.heatingSlope, 2, s.peerNoun);
-  if (heat && s.heatingSlope) {
-    const why = `Heating slope ${formatNumber(s.heatingSlope.value, 2)} Btu/ft²·HDD is ${heat}`;
+  const slope = highAgainstPeers(s.heatingSlope, 2, s.peerNoun);
+  const fuel = highAgainstPeers(s.heatingFuelIntensity, 1, s.peerNoun);
+  if ((slope && s.heatingSlope) || (fuel && s.heatingFuelIntensity)) {
+    const why =
+      slope && s.heatingSlope
+        ? `Heating slope ${formatNumber(s.heatingSlope.value, 2)} Btu/ft²·HDD is ${slope}`
+        : `Heating fuel at normal weather ${formatNumber(s.heatingFuelIntensity!.value, 1)} kBtu/ft²·yr is ${fuel}`;
     add(['infrared_camera'], `${why}: look for heat loss through the envelope and uninsulated piping.`);
     if (combustion) add(['combustion_analyzer'], `${why}, with fuel-fired heating: test the burners' combustion efficiency.`);
     add(['temperature_humidity_logger'], `${why}: log space temperatures for setpoints and setback.`);
   }
-  if (peersMissing(s.heatingSlope)) notChecked.push(`Heating slope not compared: fewer than ${MIN_PEERS} peer ${s.peerNoun} with a heating model.`);
+  if (peersMissing(s.heatingSlope)) notChecked.push(`Heating slope not compared: fewer than ${MIN_PEERS} ${s.peerNoun} with a heating model.`);
   if (s.heatingBalanceF !== null && s.heatingBalanceF >= HEATING_BALANCE_HIGH_F) {
     add(['temperature_humidity_logger'], `Heating starts at ${formatNumber(s.heatingBalanceF, 0)} °F outdoors (threshold ${HEATING_BALANCE_HIGH_F} °F): log setpoints and schedules.`);
     add(['infrared_thermometer'], `High heating balance point: check supply and space temperatures.`);
@@ -179,7 +186,7 @@ export function suggestInstruments(s: BuildingSignature): InstrumentSuggestions 
     add(['ultrasonic_flow_meter'], `High water intensity: measure flows where a fixture test cannot reach (makeup water, process lines).`);
     add(['infrared_thermometer'], `High water intensity: find hot-water leaks by their temperature.`);
   }
-  if (peersMissing(s.waterIntensity)) notChecked.push(`Water intensity not compared: fewer than ${MIN_PEERS} peer ${s.peerNoun} with water bills.`);
+  if (peersMissing(s.waterIntensity)) notChecked.push(`Water intensity not compared: fewer than ${MIN_PEERS} ${s.peerNoun} with water bills.`);
 
   // Lighting hours.
   const lh = s.lightingHoursPerYear;

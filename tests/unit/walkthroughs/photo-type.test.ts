@@ -43,7 +43,7 @@ describe('photo type from its bytes', () => {
     expect(checkPhoto(new Uint8Array(0))).toMatchObject({ ok: false, reason: 'empty' });
     const thumb = new Uint8Array(THUMB_MAX_BYTES + 1);
     thumb.set(jpeg);
-    expect(checkPhoto(thumb, { maxBytes: THUMB_MAX_BYTES, accepted: THUMB_TYPES })).toMatchObject({ ok: false, reason: 'too-large', message: 'The photo is larger than 512 KB.' });
+    expect(checkPhoto(thumb, { maxBytes: THUMB_MAX_BYTES, accepted: THUMB_TYPES })).toMatchObject({ ok: false, reason: 'too-large', message: 'The photo is larger than 192 KB.' });
     const heic = pad(bytes([0, 0, 0, 0x18], 'ftypheic'));
     expect(checkPhoto(heic, { maxBytes: THUMB_MAX_BYTES, accepted: THUMB_TYPES })).toMatchObject({ ok: false, reason: 'not-an-image' });
   });

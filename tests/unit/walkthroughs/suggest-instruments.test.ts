@@ -18,13 +18,14 @@ import {
 } from '../../../src/lib/field/suggest-instruments';
 
 const quiet: BuildingSignature = {
-  peerNoun: 'offices',
+  peerNoun: 'peer offices',
   yearBuilt: 1998,
   asOfYear: 2026,
   commodities: ['electricity', 'natural_gas', 'water'],
   electricBaseLoad: { value: 10, peerMedian: 10, peers: 8 },
   baseLoadShare: 0.5,
   heatingSlope: { value: 1.0, peerMedian: 1.0, peers: 8 },
+  heatingFuelIntensity: { value: 20, peerMedian: 20, peers: 8 },
   heatingBalanceF: 58,
   coolingSlope: { value: 0.5, peerMedian: 0.5, peers: 8 },
   coolingBalanceF: 66,
@@ -65,6 +66,9 @@ describe('instrument suggestions', () => {
     const steep = { ...quiet, heatingSlope: { value: 3, peerMedian: 1, peers: 8 } };
     const gas = suggestInstruments(steep);
     expect(types(gas.instruments, 'signature')).toEqual(expect.arrayContaining(['infrared_camera', 'combustion_analyzer']));
+    // The heating fuel used at normal weather (slope and balance point together) triggers the same.
+    const costly = suggestInstruments({ ...quiet, heatingFuelIntensity: { value: 60, peerMedian: 20, peers: 8 } });
+    expect(costly.instruments.find((i) => i.type === 'combustion_analyzer')!.reasons[0]).toMatch(/^Heating fuel at normal weather 60\.0 kBtu\/ft²·yr is 3\.0× the median/);
     const electric = suggestInstruments({ ...steep, commodities: ['electricity'] });
     expect(types(electric.instruments)).toContain('infrared_camera');
     expect(types(electric.instruments)).not.toContain('combustion_analyzer');
