@@ -3,7 +3,7 @@
  * photos, the findings and their measures, the calculators, and the plan with the kit. Works at a
  * phone's width; everything is reachable by keyboard.
  */
-import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { QueryClient, QueryClientProvider, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useRef, useState, type KeyboardEvent } from 'react';
 import type { InstrumentSuggestions } from '../../lib/field/suggest-instruments';
 import type { WalkthroughForm, WalkthroughStatus } from '../../lib/field/walkthrough-form';
@@ -68,12 +68,12 @@ type Tab = (typeof TABS)[number];
 function PlanTab({ w, perms, onChange }: { w: Walkthrough; perms: Permissions; onChange: () => void }) {
   const s = useQuery({ queryKey: ['suggestions', w.id], queryFn: () => api<InstrumentSuggestions>(`/api/walkthroughs/${w.id}/suggestions`) });
   const [kit, setKit] = useState<KitChoice>({ kitId: null, start: w.plannedOn, end: w.plannedOn });
-  const [msg, setMsg] = useState<string | null>(null);
+  const [msg, setMsg] = useState<{ ok: boolean; text: string } | null>(null);
   const holding = w.loan && !['declined', 'cancelled', 'returned', 'inspected'].includes(w.loan.status);
   const reserve = useMutation({
     mutationFn: () => reserveKit(w.id, w.title, kit),
     onSuccess: (r) => {
-      setMsg(r.ok ? 'The kit is requested: the custodian will confirm.' : r.message);
+      setMsg(r.ok ? { ok: true, text: 'The kit is requested: the custodian will confirm.' } : { ok: false, text: r.message });
       if (r.ok) onChange();
     },
   });
@@ -94,7 +94,7 @@ function PlanTab({ w, perms, onChange }: { w: Walkthrough; perms: Permissions; o
             <button type="submit" className="btn-primary min-h-11" disabled={!kit.kitId || reserve.isPending}>Reserve the kit</button>
           </form>
         )}
-        {msg && <p className="notice-info" role="status">{msg}</p>}
+        {msg && (msg.ok ? <p className="notice-info" role="status">{msg.text}</p> : <p className="notice-warn" role="alert">{msg.text}</p>)}
       </section>
     </div>
   );
@@ -172,7 +172,7 @@ function Editor({ w, perms, rate, tab, setTab }: { w: Walkthrough; perms: Permis
   const tabLabel: Record<Tab, string> = { form: 'Form', photos: `Photos (${w.photos.length})`, findings: `Findings (${w.findings.length})`, calculators: 'Calculators', plan: 'Plan & kit' };
   return (
     <div className="space-y-4">
-      <div className="sticky top-0 z-30 -mx-4 border-b border-ink-200 bg-white/95 px-4 py-2 backdrop-blur sm:-mx-6 sm:px-6">
+      <div className="sticky top-0 z-30 -mx-6 border-b border-ink-200 bg-white/95 px-6 py-2 backdrop-blur">
         <div className="flex flex-wrap items-center justify-between gap-x-3 gap-y-1 text-sm">
           <span className={`badge ${WALKTHROUGH_BADGE[w.status].cls}`} data-testid="walkthrough-status">{WALKTHROUGH_BADGE[w.status].label}</span>
           <span role="status" aria-live="polite" className={`font-medium ${SAVE_CLS[auto.state]}`} data-testid="save-state">
@@ -280,7 +280,14 @@ function Workspace({ initial, perms }: { initial: Walkthrough; perms: Permission
 }
 
 export default function WorkspaceIsland(props: { initial: Walkthrough; perms: Permissions }) {
-  return (
+  // On the server the page's shared client lives as long as the process, so its cache would hold an
+  // earlier request's walkthrough over `initialData`: render there with a client of its own.
+  const [server] = useState(() => (typeof window === 'undefined' ? new QueryClient() : null));
+  return server ? (
+    <QueryClientProvider client={server}>
+      <Workspace {...props} />
+    </QueryClientProvider>
+  ) : (
     <QueryProvider>
       <Workspace {...props} />
     </QueryProvider>
