@@ -69,10 +69,10 @@ function Calculator({ calc, onCopy }: { calc: RegisteredCalculator; onCopy?: ((t
           );
         })}
       </form>
-      <details className="text-sm">
-        <summary className="cursor-pointer text-line-700">Formula</summary>
-        <ul className="mt-1 space-y-0.5 font-mono text-xs text-ink-800">{calc.meta.formulas.map((f) => <li key={f}>{f}</li>)}</ul>
-      </details>
+      <div className="text-sm" data-testid="calc-formula">
+        <p className="font-medium">Formula</p>
+        <ul className="mt-1 space-y-0.5 break-words font-mono text-xs text-ink-800">{calc.meta.formulas.map((f) => <li key={f}>{f}</li>)}</ul>
+      </div>
       <div aria-live="polite" className="space-y-2">
         {outcome.ok ? (
           <div className="rounded-md border border-line-200 bg-line-50 p-3" data-testid="calc-result">
