@@ -116,7 +116,7 @@ function LineView({ l }: { l: Line }) {
   );
 }
 
-function FieldWork({ buildingId, canPlan }: { buildingId: string; canPlan: boolean }) {
+function FieldWork({ buildingId }: { buildingId: string }) {
   const walks = useQuery({ queryKey: ['walkthroughs', buildingId], queryFn: () => api<{ items: { id: string; title: string; plannedOn: string; status: keyof typeof WALKTHROUGH_BADGE; findings: number; measures: number; auditor: { name: string } | null }[] }>(`/api/walkthroughs?building=${buildingId}`) });
   const verified = useQuery({ queryKey: ['verified', buildingId], queryFn: () => api<{ lines: Line[]; measuresWithoutCommodity: { id: string; title: string }[]; noWeather: boolean }>(`/api/measures/verified?building=${buildingId}`) });
   return (
@@ -124,7 +124,6 @@ function FieldWork({ buildingId, canPlan }: { buildingId: string; canPlan: boole
       <section className="card space-y-3" aria-labelledby="walks-h">
         <div className="flex flex-wrap items-center justify-between gap-2">
           <h2 id="walks-h">Walkthroughs</h2>
-          {canPlan && <a className="btn-secondary" href={`/walkthroughs/new?building=${buildingId}`}>Plan a walkthrough</a>}
         </div>
         {walks.isPending && <p role="status">Loading…</p>}
         {walks.isError && <p className="notice-error" role="alert">{(walks.error as Error).message}</p>}
@@ -152,7 +151,7 @@ function FieldWork({ buildingId, canPlan }: { buildingId: string; canPlan: boole
   );
 }
 
-export default function BuildingFieldWork(props: { buildingId: string; canPlan: boolean }) {
+export default function BuildingFieldWork(props: { buildingId: string }) {
   return (
     <QueryProvider>
       <FieldWork {...props} />

@@ -159,7 +159,7 @@ export function MeasureForm({ findingId, measure, rate, canEdit, canApprove, can
                 <div className="flex gap-1">
                   <NumberInput label={`Quantity ${i + 1}`} value={Number.isFinite(l.quantity) ? l.quantity : null} error={errors[`savings.${i}.quantity`]} onChange={(q) => setLine(i, { quantity: q ?? Number.NaN })} />
                   <div>
-                    <label className="field-label" htmlFor={`u-${findingId}-${i}`}>Unit</label>
+                    <label className="field-label" htmlFor={`u-${findingId}-${i}`}>Unit<span className="sr-only"> {i + 1}</span></label>
                     <select id={`u-${findingId}-${i}`} className="field-input min-h-11" value={l.unit} onChange={(e) => setLine(i, { unit: e.target.value as Unit })}>
                       {COMMODITY_UNITS[l.commodity].map((u) => <option key={u} value={u}>{u}</option>)}
                     </select>
