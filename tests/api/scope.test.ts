@@ -17,6 +17,13 @@ interface SideFixture {
   dryRun: string;
   committed: string;
   mapping: string;
+  /** A walkthrough with a finding priced as a measure, a photo, and a spare finding and photo to delete. */
+  walkthrough: string;
+  finding: string;
+  spareFinding: string;
+  measure: string;
+  photo: string;
+  sparePhoto: string;
 }
 interface KitFixture {
   kit: string;
@@ -45,6 +52,13 @@ beforeAll(async () => {
     const dry = await call('admin', 'POST', '/api/imports', fileForm({ name: 'scope.csv', text: csv }, { installation: code, dryRun: 'true' }));
     const done = await call('admin', 'POST', '/api/imports', fileForm({ name: 'scope.csv', text: csv }, { installation: code, dryRun: 'false' }));
     const mapping = await call('admin', 'POST', '/api/mappings', { installation: code, name: `scope ${code}`, mapping: { meter: 'Meter', periodStart: 'Start', periodEnd: 'End', quantity: 'Usage' } });
+    const buildingId = buildings.find((b) => b.installationCode === code)!.id;
+    const w = await call('admin', 'POST', '/api/walkthroughs', { buildingId, title: `Scope walkthrough ${code}`, plannedOn: '2027-04-01' });
+    const finding = await call('admin', 'POST', `/api/walkthroughs/${w.body.id}/findings`, { title: 'Scope finding', category: 'lighting' });
+    const spareFinding = await call('admin', 'POST', `/api/walkthroughs/${w.body.id}/findings`, { title: 'Spare finding', category: 'other' });
+    const measure = await call('admin', 'PUT', `/api/findings/${finding.body.id}/measure`, { annualEnergyCostSavings: 100, installedCost: 500, lifeYears: 5 });
+    const photo = await call('admin', 'POST', `/api/walkthroughs/${w.body.id}/photos`, scopePhoto());
+    const sparePhoto = await call('admin', 'POST', `/api/walkthroughs/${w.body.id}/photos`, scopePhoto());
     return {
       installation: code,
       building: buildings.find((b) => b.installationCode === code)!.id,
@@ -54,6 +68,12 @@ beforeAll(async () => {
       dryRun: dry.body.id,
       committed: done.body.id,
       mapping: mapping.body.id,
+      walkthrough: w.body.id,
+      finding: finding.body.id,
+      spareFinding: spareFinding.body.id,
+      measure: measure.body.id,
+      photo: photo.body.id,
+      sparePhoto: sparePhoto.body.id,
     };
   };
   fx = { own: await pick('BNP'), foreign: await pick('KSL'), staffUserId: users.find((u) => u.email === 'staff@demo.plumbline.test')!.id, kits: await kitFixture() };
@@ -71,6 +91,12 @@ async function kitFixture(): Promise<KitFixture> {
   return { kit, instrument, requestKit, loan: { own, foreign } };
 }
 const loanDay = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
+
+/** A photo upload: JPEG start-of-image and JFIF APP0 marker bytes (constructed). */
+function scopePhoto(): FormData {
+  const jpeg = new Uint8Array([0xff, 0xd8, 0xff, 0xe0, 0x00, 0x10, 0x4a, 0x46, 0x49, 0x46, 0x00, 0x01, 0xff, 0xd9]);
+  return fileForm({ name: 'scope.jpg', text: jpeg, type: 'image/jpeg' }, { tag: 'building-number' });
+}
 
 type Side = 'own' | 'foreign';
 interface RouteCase {
@@ -195,6 +221,32 @@ const CASES: Record<string, RouteCase> = {
   },
   'GET /api/loans/[id]': { request: (s) => ({ path: `/api/loans/${fx.kits.loan[s]}` }), staff: { own: [200], foreign: [404] } },
   'POST /api/loans/[id]/transition': { request: (s) => ({ path: `/api/loans/${fx.kits.loan[s]}/transition`, body: { to: 'cancelled', note: 'scope test' } }), staff: { own: [200], foreign: [404] } },
+
+  'GET /api/walkthroughs': { request: (s) => ({ path: `/api/walkthroughs?installation=${same(s).installation}` }), staff: { own: [200], foreign: [403] } },
+  'POST /api/walkthroughs': { request: (s) => ({ path: '/api/walkthroughs', body: { buildingId: same(s).building, title: 'Planned by the scope test', plannedOn: '2027-04-02' } }), staff: { own: [201], foreign: [404] } },
+  'GET /api/walkthroughs/planning': { request: (s) => ({ path: `/api/walkthroughs/planning?building=${same(s).building}` }), staff: { own: [200], foreign: [404] } },
+  'GET /api/walkthroughs/[id]': { request: (s) => ({ path: `/api/walkthroughs/${same(s).walkthrough}` }), staff: { own: [200], foreign: [404] } },
+  'PATCH /api/walkthroughs/[id]': { request: (s) => ({ path: `/api/walkthroughs/${same(s).walkthrough}`, body: { title: 'Renamed by the scope test' } }), staff: { own: [200], foreign: [404] } },
+  'GET /api/walkthroughs/[id]/suggestions': { request: (s) => ({ path: `/api/walkthroughs/${same(s).walkthrough}/suggestions` }), staff: { own: [200], foreign: [404] } },
+  'POST /api/walkthroughs/[id]/status': { request: (s) => ({ path: `/api/walkthroughs/${same(s).walkthrough}/status`, body: { status: 'in-progress' } }), staff: { own: [200], foreign: [404] } },
+  'GET /api/walkthroughs/[id]/findings': { request: (s) => ({ path: `/api/walkthroughs/${same(s).walkthrough}/findings` }), staff: { own: [200], foreign: [404] } },
+  'POST /api/walkthroughs/[id]/findings': { request: (s) => ({ path: `/api/walkthroughs/${same(s).walkthrough}/findings`, body: { title: 'Found by staff', category: 'controls' } }), staff: { own: [201], foreign: [404] } },
+  'GET /api/walkthroughs/[id]/photos': { request: (s) => ({ path: `/api/walkthroughs/${same(s).walkthrough}/photos` }), staff: { own: [200], foreign: [404] } },
+  'POST /api/walkthroughs/[id]/photos': { request: (s) => ({ path: `/api/walkthroughs/${same(s).walkthrough}/photos`, body: scopePhoto() }), staff: { own: [201], foreign: [404] } },
+  'PATCH /api/findings/[id]': { request: (s) => ({ path: `/api/findings/${same(s).finding}`, body: { location: 'Basement' } }), staff: { own: [200], foreign: [404] } },
+  'DELETE /api/findings/[id]': { request: (s) => ({ path: `/api/findings/${same(s).spareFinding}` }), staff: { own: [204], foreign: [404] } },
+  'PUT /api/findings/[id]/measure': { request: (s) => ({ path: `/api/findings/${same(s).finding}/measure`, body: { annualEnergyCostSavings: 120, installedCost: 500, lifeYears: 5 } }), staff: { own: [200], foreign: [404] } },
+  'GET /api/measures': { request: (s) => ({ path: `/api/measures?installation=${same(s).installation}` }), staff: { own: [200], foreign: [403] } },
+  'GET /api/measures/[id]': { request: (s) => ({ path: `/api/measures/${same(s).measure}` }), staff: { own: [200], foreign: [404] } },
+  // Staff may record an implementation but not approve: refused on the permission once in scope.
+  'POST /api/measures/[id]/status': { request: (s) => ({ path: `/api/measures/${same(s).measure}/status`, body: { status: 'approved' } }), staff: { own: [403], foreign: [403, 404] } },
+  'GET /api/measures/rollup': { request: (s) => ({ path: `/api/measures/rollup?installation=${same(s).installation}` }), staff: { own: [200], foreign: [403] } },
+  'GET /api/measures/verified': { request: (s) => ({ path: `/api/measures/verified?building=${same(s).building}` }), staff: { own: [200], foreign: [404] } },
+  'GET /api/photos/[id]': { request: (s) => ({ path: `/api/photos/${same(s).photo}` }), staff: { own: [200], foreign: [404] } },
+  'PATCH /api/photos/[id]': { request: (s) => ({ path: `/api/photos/${same(s).photo}`, body: { caption: 'Checked by the scope test' } }), staff: { own: [200], foreign: [404] } },
+  'DELETE /api/photos/[id]': { request: (s) => ({ path: `/api/photos/${same(s).sparePhoto}` }), staff: { own: [204], foreign: [404] } },
+  'GET /api/settings/discount-rate': { request: () => ({ path: '/api/settings/discount-rate' }), staff: { own: [200], foreign: [200] } },
+  'PUT /api/settings/discount-rate': { request: () => ({ path: '/api/settings/discount-rate', body: { realDiscountRatePercent: 4, effectiveFrom: '2026-04-01', source: 'staff may not' } }), staff: { own: [403], foreign: [403] } },
   'GET /api/outbox': { request: () => ({ path: '/api/outbox' }), staff: { own: [403], foreign: [403] } },
   'GET /api/activity': { request: () => ({ path: '/api/activity' }), staff: { own: [403], foreign: [403] } },
   'GET /api/walkthroughs/[id]/buildingsync': { request: (s) => ({ path: `/api/walkthroughs/${walkthroughOf(s)}/buildingsync` }), staff: { own: [200], foreign: [404] } },

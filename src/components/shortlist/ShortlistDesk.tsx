@@ -106,13 +106,13 @@ function FlagDialog({ item, onClose, onDone }: { item: Item; onClose: () => void
   );
 }
 
-function Desk({ installations, canWeights, canFlag }: { installations: { code: string; name: string }[]; canWeights: boolean; canFlag: boolean }) {
+function Desk({ installations, canWeights, canFlag, canPlan }: { installations: { code: string; name: string }[]; canWeights: boolean; canFlag: boolean; canPlan: boolean }) {
   const qc = useQueryClient();
   const [filters, setFilters] = useState({ installation: '', useType: '', commodity: '', minAreaFt2: '', maxAreaFt2: '' });
   const [sort, setSort] = useState<{ key: SortKey; desc: boolean }>({ key: 'rank', desc: false });
   const [open, setOpen] = useState<string | null>(null);
   const [flagging, setFlagging] = useState<Item | null>(null);
-  const [notice, setNotice] = useState<string | null>(null);
+  const [notice, setNotice] = useState<{ text: string; buildingId: string } | null>(null);
   const params = new URLSearchParams({ limit: '20000', explain: '25' });
   for (const [k, v] of Object.entries(filters)) if (v) params.set(k, v);
   const query = useQuery({ queryKey: ['shortlist', params.toString()], queryFn: () => api<Answer>(`/api/shortlist?${params}`) });
@@ -165,7 +165,7 @@ function Desk({ installations, canWeights, canFlag }: { installations: { code: s
           <div><label htmlFor="f-max" className="field-label">to (ft²)</label><input id="f-max" inputMode="numeric" className="field-input w-28 figure" value={filters.maxAreaFt2} onChange={(e) => setFilters({ ...filters, maxAreaFt2: e.target.value.replace(/[^0-9]/g, '') })} /></div>
           <div><label htmlFor="f-s" className="field-label">Sort by</label><select id="f-s" className="field-input" value={`${sort.key}:${sort.desc}`} onChange={(e) => { const [k, d] = e.target.value.split(':'); setSort({ key: k as SortKey, desc: d === 'true' }); }}>{SORTS.flatMap(([k, l]) => [<option key={`${k}a`} value={`${k}:false`}>{l} ↑</option>, <option key={`${k}d`} value={`${k}:true`}>{l} ↓</option>])}</select></div>
         </div>
-        {notice && <p className="notice-info" role="status">{notice}</p>}
+        {notice && <p className="notice-info" role="status">{notice.text}{canPlan && <> <a href={`/walkthroughs/new?building=${notice.buildingId}`}>Plan the walkthrough now</a>.</>}</p>}
         <div role="table" aria-label="Buildings by audit priority" aria-rowcount={rows.length} className="rounded-md border border-ink-200 text-sm">
           <div role="row" className="grid grid-cols-[3.5rem_4rem_1fr_7rem_7rem_8rem_7rem_7rem] gap-x-2 border-b border-ink-200 bg-ink-50 px-3 py-2 text-xs font-semibold uppercase tracking-wide text-ink-600">
             <span role="columnheader">Rank</span><span role="columnheader">Score</span><span role="columnheader">Building</span><span role="columnheader" className="text-right">EUI / peer</span><span role="columnheader" className="text-right">Excess kBtu</span><span role="columnheader" className="text-right">Excess $/yr</span><span role="columnheader">Evaluated</span><span role="columnheader"><span className="sr-only">Actions</span></span>
@@ -190,6 +190,7 @@ function Desk({ installations, canWeights, canFlag }: { installations: { code: s
                       <span role="cell" className="flex gap-2">
                         <button type="button" className="text-line-700 underline" aria-expanded={open === i.buildingId} onClick={() => setOpen(open === i.buildingId ? null : i.buildingId)}>why<span className="sr-only"> {i.buildingNumber}</span></button>
                         {canFlag && !i.flag && <button type="button" className="text-brick-ink underline" onClick={() => setFlagging(i)}>flag<span className="sr-only"> {i.buildingNumber}</span></button>}
+                        {canPlan && i.flag && <a href={`/walkthroughs/new?building=${i.buildingId}`}>plan<span className="sr-only"> a walkthrough of {i.buildingNumber}</span></a>}
                       </span>
                     </div>
                     {open === i.buildingId && (
@@ -215,7 +216,7 @@ function Desk({ installations, canWeights, canFlag }: { installations: { code: s
           item={flagging}
           onClose={() => setFlagging(null)}
           onDone={(notified) => {
-            setNotice(`Building ${flagging.buildingNumber} is flagged. ${notified.length ? `Mail sent to ${notified.join(', ')}.` : 'No installation staff to notify.'}`);
+            setNotice({ text: `Building ${flagging.buildingNumber} is flagged. ${notified.length ? `Mail sent to ${notified.join(', ')}.` : 'No installation staff to notify.'}`, buildingId: flagging.buildingId });
             setFlagging(null);
             void refresh();
           }}
@@ -225,10 +226,10 @@ function Desk({ installations, canWeights, canFlag }: { installations: { code: s
   );
 }
 
-export default function ShortlistDesk(props: { installations: { code: string; name: string }[]; canWeights: boolean; canFlag: boolean }) {
+export default function ShortlistDesk(props: { installations: { code: string; name: string }[]; canWeights: boolean; canFlag: boolean; canPlan?: boolean }) {
   return (
     <QueryProvider>
-      <Desk {...props} />
+      <Desk {...props} canPlan={props.canPlan ?? false} />
     </QueryProvider>
   );
 }
