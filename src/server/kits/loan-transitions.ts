@@ -28,6 +28,9 @@ const WHO: Record<string, string> = {
 export async function transitionLoan(actor: Actor, id: string, input: LoanTransition, ip = '') {
   const db = await getDb();
   const r = await loanRecord(actor, id);
+  const parties = partiesOf(actor, r);
+  // Someone who is no party to the loan learns nothing about its state.
+  if (!parties.custodian && !parties.requester && !parties.borrower) throw errors.forbidden('Only the person who asked for the loan, the walkthrough’s auditor or the kit custodian may move it.');
   const from = r.status as LoanStatus;
   const to = input.to;
   const move = loanMove(from, to);
@@ -40,7 +43,6 @@ export async function transitionLoan(actor: Actor, id: string, input: LoanTransi
       { status: from, next: nextStatuses(from) },
     );
   }
-  const parties = partiesOf(actor, r);
   const allowed = parties.custodian || (move.by === 'requester' && parties.requester) || (move.by === 'borrower' && (parties.requester || parties.borrower));
   if (!allowed) throw errors.forbidden(`Only ${WHO[move.by]} may ${move.verb.toLowerCase()} this loan.`);
 

@@ -77,10 +77,11 @@ export async function setMeasureStatus(actor: Actor, id: string, change: Measure
     const { measure: m, plannedOn } = await measureRef(tx, actor, id, true);
     const from = m.status as MeasureStatus;
     const to = change.status;
-    if (from === to) return measureView(m);
-    if (!canMoveMeasure(from, to)) throw errors.conflict(`A measure cannot go from ${MEASURE_STATUS_LABELS[from].toLowerCase()} to ${MEASURE_STATUS_LABELS[to].toLowerCase()}.`, { reason: 'not-allowed' });
+    // Who may ask for this status is decided before anything about the measure is revealed.
     if (to === 'implemented') requireAny(actor, ['measures:approve', 'walkthroughs:plan'], 'record an implementation');
     else requireAny(actor, ['measures:approve'], `${to === 'approved' && from === 'proposed' ? 'approve' : 'decide on'} measures (measures:approve)`);
+    if (from === to) return measureView(m);
+    if (!canMoveMeasure(from, to)) throw errors.conflict(`A measure cannot go from ${MEASURE_STATUS_LABELS[from].toLowerCase()} to ${MEASURE_STATUS_LABELS[to].toLowerCase()}.`, { reason: 'not-allowed' });
     const set: Partial<typeof measure.$inferInsert> = { status: to, updatedAt: new Date() };
     if (to === 'implemented') {
       const on = change.implementedOn!;
