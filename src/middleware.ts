@@ -10,7 +10,7 @@ import { ensureRuntime } from './server/runtime';
 import { securityHeaders } from './server/security-headers';
 import { CONTROL_HEADER, controlActor } from './server/control';
 import { forgetSessions, readSnapshot, sessionCookieValue, snapshotGeneration, storeSnapshot } from './server/session-cache';
-import { trustedOrigins } from './server/config';
+import { MAX_JSON_BYTES, trustedOrigins } from './server/config';
 
 const PUBLIC_PAGES = new Set(['/sign-in', '/forgot-password', '/reset-password']);
 const PUBLIC_PREFIXES = ['/api/auth/', '/_astro/', '/fonts/'];
@@ -45,6 +45,27 @@ function crossSite(request: Request): boolean {
   }
 }
 
+/** Routes that take a multipart upload; they cap its size themselves (src/server/upload.ts). */
+const UPLOAD_ROUTES = [/^\/api\/imports$/, /^\/api\/weather\/stations\/[^/]+\/observations$/, /^\/api\/walkthroughs\/[^/]+\/photos$/];
+/** Sign-in, sign-up and password bodies are small; the auth library reads them whole. */
+const AUTH_BODY_BYTES = 64 * 1024;
+
+/**
+ * A body larger than its route takes is refused before anything reads it (ASVS 4.0.3 12.1.1, 13.1.3):
+ * JSON bodies up to MAX_JSON_BYTES (readJson also counts a body sent without a length), auth
+ * bodies up to 64 KB and only with a declared length.
+ */
+function bodyTooLarge(request: Request, path: string): HttpError | null {
+  if (SAFE_METHODS.has(request.method) || UPLOAD_ROUTES.some((r) => r.test(path))) return null;
+  const header = request.headers.get('content-length');
+  const declared = header === null ? null : Number(header);
+  const auth = path.startsWith('/api/auth/');
+  if (auth && declared === null && request.body) return new HttpError(411, 'length_required', 'Send the request with a Content-Length.');
+  const max = auth ? AUTH_BODY_BYTES : MAX_JSON_BYTES;
+  if (declared !== null && declared > max) return errors.tooLarge(`The body is larger than ${max} bytes.`);
+  return null;
+}
+
 function escapeHtml(s: string): string {
   return s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 }
@@ -73,6 +94,8 @@ export const onRequest = defineMiddleware(async (ctx, next) => {
     const refusal = errors.forbidden('Cross-site requests are refused: send the request from Plumbline itself.');
     return securityHeaders(path.startsWith('/api/') ? errorResponse(refusal) : errorPage(403, refusal.message));
   }
+  const oversized = path.startsWith('/api/') ? bodyTooLarge(ctx.request, path) : null;
+  if (oversized) return securityHeaders(errorResponse(oversized));
   const reading = SAFE_METHODS.has(ctx.request.method);
   const control = ctx.request.headers.has(CONTROL_HEADER) ? controlActor(path, ctx.request.headers, ctx.clientAddress) : null;
   if (control) ctx.locals.actor = control;

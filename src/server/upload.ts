@@ -4,28 +4,10 @@
  * body is cut off instead of filling memory.
  */
 import type { APIContext } from 'astro';
-import { errors } from './http';
+import { errors, limited } from './http';
 
 /** Room for multipart boundaries and the small text fields beside the file. */
 const FORM_OVERHEAD = 256 * 1024;
-
-function limited(body: ReadableStream<Uint8Array>, max: number): ReadableStream<Uint8Array> {
-  let seen = 0;
-  const reader = body.getReader();
-  return new ReadableStream<Uint8Array>({
-    async pull(controller) {
-      const { done, value } = await reader.read();
-      if (done) return controller.close();
-      seen += value.byteLength;
-      if (seen > max) {
-        await reader.cancel();
-        return controller.error(errors.tooLarge(`The upload is larger than ${Math.round(max / 1024 / 1024)} MB.`));
-      }
-      controller.enqueue(value);
-    },
-    cancel: (r) => reader.cancel(r),
-  });
-}
 
 export interface Upload {
   form: FormData;

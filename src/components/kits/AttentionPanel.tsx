@@ -19,7 +19,7 @@ function Row({ i }: { i: InstrumentListed }) {
       <div className="flex flex-wrap items-center justify-between gap-2">
         <span>
           <span className="font-medium">{label}</span> <span className="text-ink-600">{i.model} · <span className="figure">{i.serial}</span></span>
-          {' · '}{i.kitId ? <a href={`/kits/${i.kitId}`}>kit {i.kitCode}</a> : <span className="text-ink-600">in no kit</span>}
+          {' · '}{i.kitId ? <a href={`/kits/${i.kitId}`} className="underline">kit {i.kitCode}</a> : <span className="text-ink-600">in no kit</span>}
         </span>
         <span className="flex flex-wrap items-center gap-1">
           <CalibrationBadge due={i.calibrationDue} status={i.calibration} />

@@ -100,7 +100,7 @@ export function ReservationCalendar({
                 ].filter(Boolean).join('; ');
                 const look = [
                   'relative flex h-14 w-full flex-col items-start rounded border p-1 text-left sm:h-16',
-                  day.inMonth ? '' : 'text-ink-400',
+                  day.inMonth ? '' : 'text-ink-600',
                   held.length ? (held.some(isOut) ? `${OUT} border-line-700` : `${HELD} border-line-600`) : on.length ? 'border-ink-300 bg-ink-50' : day.inMonth ? 'border-ink-200 bg-white' : 'border-ink-200 bg-ink-50',
                   selected ? 'ring-2 ring-line-600 ring-offset-1' : '',
                   clash ? 'border-2 border-brick-600' : '',
