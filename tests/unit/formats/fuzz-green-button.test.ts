@@ -66,3 +66,19 @@ describe('Green Button parser under malformed input', () => {
     );
   });
 });
+
+describe('characters XML does not allow', () => {
+  // Source: W3C XML 1.0 (5th ed.) §2.2, production [2] Char: #x9 | #xA | #xD | [#x20-#xD7FF] |
+  // [#xE000-#xFFFD] | [#x10000-#x10FFFF]. U+0000 also cannot be stored by PostgreSQL (docs §8.3).
+  it.each([['\u0000', 'U+0000'], ['\u0001', 'U+0001'], ['\u001b', 'U+001B'], ['\uffff', 'U+FFFF']])('a title holding %j is malformed XML, with the line and column', (ch, code) => {
+    const xml = example.replace('<title>Building 101 - electric service</title>', `<title>Building 101${ch}</title>`);
+    const line = xml.slice(0, xml.indexOf(ch)).split('\n').length;
+    const r = parseGreenButton(xml);
+    expect(r).toMatchObject({ ok: false, reason: 'malformed-xml' });
+    if (!r.ok) expect(r.message).toContain(`${code}, which XML does not allow (line ${line}, column `);
+  });
+
+  it('tab, line feed and carriage return stay allowed', () => {
+    expect(parseGreenButton(example.replace('<title>Building 101 - electric service</title>', '<title>Building\t101\r\n</title>')).ok).toBe(true);
+  });
+});
