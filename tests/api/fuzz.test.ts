@@ -1,7 +1,7 @@
 /**
- * Bad input over HTTP on the built server, generated with fast-check: malformed bill CSVs and
- * Green Button feeds on POST /api/imports, and malformed bodies on every route that reads a JSON
- * body. Nothing may answer 5xx; a refusal is a 4xx with `{ error: { code, message } }`; and a
+ * Bad input over HTTP on the built server, generated with fast-check: malformed bill CSVs, Green
+ * Button feeds and upload forms on POST /api/imports, malformed weather CSVs on a station's
+ * observations upload, and malformed bodies on every route that reads a JSON body. Nothing may answer 5xx; a refusal is a 4xx with `{ error: { code, message } }`; and a
  * refused request writes nothing (the bills, the resource behind the route and the fuzzing
  * account's activity log are compared before and after). The base files are the constructed
  * fixtures tests/fixtures/imports/messy-bills.csv and tests/fixtures/schemas/greenbutton-dmd-example.xml.
@@ -186,6 +186,42 @@ describe('POST /api/imports with malformed files (dryRun false)', () => {
       fc.asyncProperty(fields, mapping, name, type, (f, m, n, t) => property('form', new TextEncoder().encode(file), { name: n, type: t }, m, f as Record<string, string>)),
       { numRuns: RUNS },
     );
+  }, 120_000);
+});
+
+describe('POST /api/weather/stations/[code]/observations with malformed weather files', () => {
+  it(`${RUNS} malformed daily-summaries CSVs: stored with counts that add up, or a 4xx that stores no day`, async () => {
+    const base = fixture('imports/weather-daily-summaries.csv').replaceAll('XXC00000001', s.station);
+    // What the station holds: its coverage and gaps, and degree days over the fixture's span (values).
+    const weather = async () => {
+      const detail = await call(s.fuzzer, 'GET', `/api/weather/stations/${s.station}`);
+      const dd = await call(s.fuzzer, 'GET', `/api/weather/degree-days?station=${s.station}&start=2023-01-01&end=2025-12-31`);
+      return JSON.stringify([detail.status, detail.body, dd.status, dd.body]);
+    };
+    let before = await weather();
+    const tally = { stored: 0, refused: 0 };
+    await fc.assert(
+      fc.asyncProperty(malformedBytes(base), fc.constantFrom('standard', 'metric'), async (bytes, units) => {
+        const r = await call(s.fuzzer, 'POST', `/api/weather/stations/${s.station}/observations`, fileForm({ name: 'weather.csv', text: bytes }, { units }));
+        const after = await weather();
+        expect(r.status, JSON.stringify(r.body).slice(0, 300)).toBeLessThan(500);
+        if (r.status === 201) {
+          tally.stored++;
+          const c = r.body.counts;
+          expect(c.new + c.changed + c.unchanged + c.rejected).toBe(c.rows);
+          for (const p of r.body.problems) expect(Number.isInteger(p.row) && typeof p.code === 'string' && p.message.length > 0).toBe(true);
+        } else {
+          tally.refused++;
+          expect(r.status).toBeGreaterThanOrEqual(400);
+          expectErrorShape(r);
+          expect(after).toBe(before);
+        }
+        before = after;
+      }),
+      { numRuns: RUNS },
+    );
+    console.log(`[fuzz] weather observations (stored / refused): ${tally.stored}/${tally.refused}`);
+    expect(Math.min(tally.stored, tally.refused)).toBeGreaterThan(0);
   }, 120_000);
 });
 
