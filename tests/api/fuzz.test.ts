@@ -100,7 +100,7 @@ function expectErrorShape(r: { status: number; body: any }): void {
   expect(typeof r.body.error.message === 'string' && r.body.error.message.length > 0).toBe(true);
 }
 
-describe('POST /api/imports with malformed files (dryRun false)', () => {
+describe('uploads: POST /api/imports (dryRun false) and weather observations, with malformed files', () => {
   const csv = fixture('imports/messy-bills.csv');
   const xml = fixture('schemas/greenbutton-dmd-example.xml');
   const csvMapping = JSON.stringify({ meter: 'Meter', periodStart: 'Period Start', periodEnd: 'period END', quantity: 'USAGE', unit: 'unit', cost: 'Total Cost', estimated: 'EST?' });
@@ -187,15 +187,15 @@ describe('POST /api/imports with malformed files (dryRun false)', () => {
       { numRuns: RUNS },
     );
   }, 120_000);
-});
 
-describe('POST /api/weather/stations/[code]/observations with malformed weather files', () => {
-  it(`${RUNS} malformed daily-summaries CSVs: stored with counts that add up, or a 4xx that stores no day`, async () => {
+  it.concurrent(`${RUNS} malformed daily-summaries CSVs (POST /api/weather/stations/[code]/observations): stored with counts that add up, or a 4xx that stores no day`, async () => {
     const base = fixture('imports/weather-daily-summaries.csv').replaceAll('XXC00000001', s.station);
     // What the station holds: its coverage and gaps, and degree days over the fixture's span (values).
     const weather = async () => {
-      const detail = await call(s.fuzzer, 'GET', `/api/weather/stations/${s.station}`);
-      const dd = await call(s.fuzzer, 'GET', `/api/weather/degree-days?station=${s.station}&start=2023-01-01&end=2025-12-31`);
+      const [detail, dd] = await Promise.all([
+        call(s.fuzzer, 'GET', `/api/weather/stations/${s.station}`),
+        call(s.fuzzer, 'GET', `/api/weather/degree-days?station=${s.station}&start=2023-01-01&end=2025-12-31`),
+      ]);
       return JSON.stringify([detail.status, detail.body, dd.status, dd.body]);
     };
     let before = await weather();
