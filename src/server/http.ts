@@ -58,8 +58,46 @@ export function describeZodError(error: z.ZodError): { message: string; details:
   return { message: `Invalid input — ${message}`, details };
 }
 
-/** Parses a value with a schema; @throws 400 naming each bad field. */
+/**
+ * The path of the first string (value or key) in `value` that holds U+0000, or null. PostgreSQL
+ * text and jsonb cannot store that character (PostgreSQL docs §8.3 and §8.14), so input holding
+ * it is refused here rather than failing in the database. Iterative: a deeply nested body cannot
+ * exhaust the stack.
+ */
+export function findNulPath(value: unknown): string | null {
+  interface Item {
+    v: unknown;
+    key: string;
+    parent: Item | null;
+  }
+  const path = (item: Item): string => {
+    const keys: string[] = [];
+    for (let at: Item | null = item; at !== null && at.parent !== null; at = at.parent) keys.push(at.key);
+    return keys.reverse().join('.') || '(body)';
+  };
+  const stack: Item[] = [{ v: value, key: '', parent: null }];
+  while (stack.length > 0) {
+    const item = stack.pop()!;
+    if (typeof item.v === 'string') {
+      if (item.v.includes('\u0000')) return path(item);
+    } else if (item.v !== null && typeof item.v === 'object') {
+      for (const [k, v] of Object.entries(item.v)) {
+        const next = { v, key: k, parent: item };
+        if (k.includes('\u0000')) return path(next);
+        stack.push(next);
+      }
+    }
+  }
+  return null;
+}
+
+/** Parses a value with a schema; @throws 400 naming each bad field (a NUL character included). */
 export function parseWith<T>(schema: ZodType<T>, value: unknown): T {
+  const nul = findNulPath(value);
+  if (nul !== null) {
+    const message = 'contains the NUL character (U+0000), which cannot be stored';
+    throw errors.badRequest(`Invalid input — ${nul}: ${message}`, [{ field: nul, message }]);
+  }
   const r = schema.safeParse(value);
   if (!r.success) {
     const { message, details } = describeZodError(r.error);

@@ -36,8 +36,12 @@ export async function readUpload(ctx: APIContext, maxFileBytes: number, field = 
     if (cause && typeof cause === 'object' && 'status' in cause) throw cause;
     throw errors.badRequest('The upload could not be read as a multipart form.');
   }
-  const file = form.get(field);
-  if (!(file instanceof File)) throw errors.badRequest(`${field}: attach a file`, [{ field, message: 'attach a file' }]);
+  const sent = form.get(field);
+  if (!(sent instanceof File)) throw errors.badRequest(`${field}: attach a file`, [{ field, message: 'attach a file' }]);
+  // The name is stored and logged as text: control characters (U+0000 above all, which
+  // PostgreSQL text cannot hold) are dropped from it.
+  const name = sent.name.replace(/[\u0000-\u001f\u007f]/g, '');
+  const file = name === sent.name ? sent : new File([sent], name, { type: sent.type, lastModified: sent.lastModified });
   if (file.size === 0) throw errors.badRequest(`${field}: the file is empty`, [{ field, message: 'the file is empty' }]);
   if (file.size > maxFileBytes) throw errors.tooLarge(`The file is larger than the limit of ${mb} MB.`);
   return { form, file };

@@ -103,6 +103,9 @@ function readEntry(entry: XmlNode): EspiEntry | null {
   };
 }
 
+/** Characters outside XML 1.0's `Char` production (W3C XML 1.0 5th ed. §2.2): C0 controls other than tab, LF, CR, and U+FFFE/U+FFFF. */
+const NOT_XML_CHAR = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFE\uFFFF]/;
+
 /**
  * Parses the feed text into ESPI entries.
  * @example readEspiFeed(xml) // { ok: true, entries: [{ kind: 'UsagePoint', ... }, ...] }
@@ -112,6 +115,14 @@ export function readEspiFeed(xml: string): { ok: true; entries: EspiEntry[] } | 
   if (body.trim() === '') return fileFailure('empty-file', 'The file is empty.');
   if (/<!DOCTYPE|<!ENTITY/i.test(body)) {
     return fileFailure('dtd-not-allowed', 'The XML declares a DOCTYPE or entities; Green Button files have none, so it is refused for safety.');
+  }
+  const bad = NOT_XML_CHAR.exec(body);
+  if (bad !== null) {
+    const before = body.slice(0, bad.index);
+    const line = before.split('\n').length;
+    const column = bad.index - before.lastIndexOf('\n');
+    const code = `U+${bad[0].charCodeAt(0).toString(16).toUpperCase().padStart(4, '0')}`;
+    return fileFailure('malformed-xml', `The file is not well-formed XML: it contains the control character ${code}, which XML does not allow (line ${line}, column ${column}).`);
   }
   const valid = XMLValidator.validate(body);
   if (valid !== true) {

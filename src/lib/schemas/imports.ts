@@ -12,7 +12,8 @@ export const importFieldsSchema = z.object({
       if (s === undefined || s.trim() === '') return undefined;
       try {
         const v: unknown = JSON.parse(s);
-        const r = z.record(z.string().max(100), z.string().max(200)).safeParse(v);
+        // No NUL (U+0000): PostgreSQL cannot store it in the import record's jsonb.
+        const r = z.record(z.string().max(100).regex(/^[^\u0000]*$/), z.string().max(200).regex(/^[^\u0000]*$/)).safeParse(v);
         if (r.success) return r.data;
       } catch {
         /* fall through */
