@@ -173,13 +173,33 @@ export function readQuery<T>(ctx: APIContext, schema: ZodType<T>): T {
 
 type Handler = (ctx: APIContext) => Promise<Response> | Response;
 
+/** A refused request goes into the activity log as a security event (ASVS 4.0.3 7.1.3, 7.2.2). */
+async function logDenied(ctx: APIContext, e: HttpError): Promise<void> {
+  const actor = ctx.locals.actor;
+  try {
+    const { logActivity } = await import('./activity');
+    await logActivity({
+      action: 'access.denied',
+      userId: actor && actor.id !== 'control' ? actor.id : null,
+      actor: actor?.email ?? '',
+      ip: ctx.clientAddress,
+      details: { method: ctx.request.method, path: ctx.url.pathname, message: e.message },
+    });
+  } catch (err) {
+    console.error('[activity] could not record a refused request:', err);
+  }
+}
+
 /** Wraps an endpoint: HttpError → its status; anything else → 500 with a support id. */
 export function endpoint(handler: Handler): APIRoute {
   return async (ctx) => {
     try {
       return await handler(ctx);
     } catch (e) {
-      if (e instanceof HttpError) return errorResponse(e);
+      if (e instanceof HttpError) {
+        if (e.status === 403) await logDenied(ctx, e);
+        return errorResponse(e);
+      }
       if (e instanceof z.ZodError) {
         const { message, details } = describeZodError(e);
         return errorResponse(errors.badRequest(message, details));
