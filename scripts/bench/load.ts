@@ -146,6 +146,9 @@ const cookies = await Promise.all(roles.map((r) => signIn(`${r}@demo.plumbline.t
 console.log(`${USERS} people signed in (${SHARE.map(([r]) => `${roles.filter((x) => x === r).length} ${r}`).join(', ')}); load for ${SECONDS} s`);
 
 const times = { page: [] as number[], api: [] as number[] };
+/** Latencies per route pattern (ids replaced), to name the slowest. */
+const byRoute = new Map<string, number[]>();
+const pattern = (method: string, path: string) => `${method} ${path.split('?')[0]!.replace(/[0-9a-f]{8}-[0-9a-f-]{27}/g, ':id')}`;
 const failures: string[] = [];
 let errors = 0;
 const end = Date.now() + SECONDS * 1000;
@@ -156,7 +159,12 @@ async function person(i: number) {
     const t = performance.now();
     try {
       const r = await send(step.method, step.path, cookies[i]!, step.body);
-      times[step.kind].push(performance.now() - t);
+      const ms = performance.now() - t;
+      times[step.kind].push(ms);
+      const key = pattern(step.method, step.path);
+      const list = byRoute.get(key) ?? [];
+      list.push(ms);
+      byRoute.set(key, list);
       if (r.status < 200 || r.status >= 300) {
         errors++;
         if (failures.length < 10) failures.push(`${step.method} ${step.path} → ${r.status} ${r.body.slice(0, 160)}`);
@@ -188,6 +196,8 @@ if (!kept) rmSync(dir, { recursive: true, force: true });
 
 console.log(`pages: ${JSON.stringify(pages)}`);
 console.log(`API:   ${JSON.stringify(apis)}`);
+const slowest = [...byRoute].map(([route, xs]) => ({ route, ...stats(xs) })).sort((a, b) => (b.p95Ms ?? 0) - (a.p95Ms ?? 0)).slice(0, 6);
+for (const r of slowest) console.log(`slowest: ${r.route} ${JSON.stringify({ requests: r.requests, p50Ms: r.p50Ms, p95Ms: r.p95Ms })}`);
 for (const f of failures) console.log(`error: ${f}`);
 console.log(`target 0 errors: ${errors === 0 ? 'met' : 'MISSED'}`);
 console.log(JSON.stringify({ users: USERS, seconds: Number(seconds.toFixed(1)), requests: all.requests, requestsPerSecond: Number((all.requests / seconds).toFixed(1)), errors, p50Ms: all.p50Ms, p95Ms: all.p95Ms, p99Ms: all.p99Ms, pageP95Ms: pages.p95Ms, apiP95Ms: apis.p95Ms, peakRssMb }));
