@@ -17,15 +17,14 @@ import { join } from 'node:path';
 import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { z } from 'zod';
-import { acceptanceThresholdsSchema } from '../../src/lib/baseline/acceptance';
 import { priorityWeightsSchema } from '../../src/lib/benchmark/priority-weights';
 import { discountRateSettingSchema } from '../../src/lib/economics/discount-rate';
 import { findingInputSchema, findingPatchSchema, formSaveSchema, photoPatchSchema, walkthroughPlanPatchSchema, walkthroughPlanSchema, walkthroughStatusChangeSchema } from '../../src/lib/field/walkthrough-api';
 import { instrumentInputSchema, instrumentPatchSchema, kitInputSchema, kitPatchSchema, loanRequestSchema, loanTransitionSchema } from '../../src/lib/kits/schemas';
 import { measureInputSchema, measureStatusChangeSchema } from '../../src/lib/savings/measure-input';
-import { baselineDecisionSchema, baselinePeriodSchema } from '../../src/lib/schemas/baselines';
+import { acceptanceSettingSchema, baselineDecisionSchema, baselinePeriodSchema, baselineRunSchema } from '../../src/lib/schemas/baselines';
 import { savedMappingSchema } from '../../src/lib/schemas/imports';
-import { buildingInputSchema, buildingPatchSchema, installationCodeSchema, installationInputSchema, installationPatchSchema, meterInputSchema, meterPatchSchema } from '../../src/lib/schemas/inventory';
+import { buildingInputSchema, buildingPatchSchema, installationInputSchema, installationPatchSchema, installationTargetSchema, meterInputSchema, meterPatchSchema } from '../../src/lib/schemas/inventory';
 import { flagInputSchema } from '../../src/lib/schemas/shortlist';
 import { userInputSchema, userPatchSchema } from '../../src/lib/schemas/users';
 import { fetchRangeSchema, stationInputSchema } from '../../src/lib/schemas/weather';
@@ -355,7 +354,7 @@ const JSON_ROUTES: Record<string, JsonRouteSpec> = {
   'PUT /api/targets/[code]': {
     path: () => '/api/targets/BNP',
     valid: () => ({ baselineFy: 2024, reductionPct: 30, targetFy: 2030 }),
-    accepts: passes(z.object({ baselineFy: z.number().int().min(1990).max(2100), reductionPct: z.number().gt(0).max(100), targetFy: z.number().int().min(1991).max(2100) })),
+    accepts: passes(installationTargetSchema),
     probes: () => [{ path: '/api/targets', pick: (b) => b.items.map((i: Record<string, unknown>) => Object.fromEntries(Object.entries(i).filter(([k]) => /code|target/i.test(k)))) }],
   },
   'POST /api/baseline-periods': {
@@ -391,13 +390,13 @@ const JSON_ROUTES: Record<string, JsonRouteSpec> = {
   'POST /api/baselines/run': {
     path: () => '/api/baselines/run',
     valid: () => ({ installation: 'BNP' }),
-    accepts: passes(z.object({ installation: installationCodeSchema.optional() })),
+    accepts: passes(baselineRunSchema),
     probes: () => [{ path: '/api/baselines/run', pick: (b) => String(b.trigger ?? '').includes(s.fuzzer) }],
   },
   'PUT /api/settings/baseline-acceptance': {
     path: () => '/api/settings/baseline-acceptance',
     valid: () => ({ maxCvrmse: 0.2, minPeriods: 12, minDays: 365 }),
-    accepts: passes(acceptanceThresholdsSchema.refine((v) => v.maxCvrmse <= 1)),
+    accepts: passes(acceptanceSettingSchema),
     probes: () => [{ path: '/api/settings/baseline-acceptance' }],
   },
   'POST /api/weather/stations/[code]/fetch': {
