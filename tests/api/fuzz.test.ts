@@ -47,6 +47,8 @@ interface Setup {
   meters: Record<Kind, MeterSet>;
   station: string;
   targetUserId: string;
+  /** A demo meter with a baseline, for the baseline decisions and periods. */
+  baselineMeterId: string;
   /** The kit library and a walkthrough of the fuzz building, for the routes that change them. */
   kitId: string;
   instrumentId: string;
@@ -81,6 +83,8 @@ beforeAll(async () => {
   const station = `FZ${stamp}`;
   await ok(call('admin', 'POST', '/api/weather/stations', { code: station, name: 'Fuzz station', installation: 'BNP' }));
   const target = await ok(call('admin', 'POST', '/api/users', { email: `target.${stamp.toLowerCase()}@fuzz.test`, name: 'Fuzz Target', role: 'analyst' }));
+  const baselines = await ok(call('admin', 'GET', '/api/baselines?installation=BNP'), 200);
+  const baselineMeterId: string = baselines.items.at(-1).meterId;
   const kit = await ok(call('admin', 'POST', '/api/kits', { code: `FZ${stamp}`, name: 'Fuzz kit', homeLocation: 'Store' }));
   const instrument = await ok(call('admin', 'POST', '/api/instruments', { kitId: kit.id, type: 'light_meter', model: 'M', serial: `FZ${stamp}-1`, calibrationDue: day(400) }));
   const walkthrough = await ok(call('admin', 'POST', '/api/walkthroughs', { buildingId: building.id, title: 'Fuzz walkthrough', plannedOn: day(30) }));
@@ -89,7 +93,7 @@ beforeAll(async () => {
   const photo = await ok(call('admin', 'POST', `/api/walkthroughs/${walkthrough.id}/photos`, fileForm({ name: 'fuzz.jpg', text: JPEG_BYTES, type: 'image/jpeg' }, { tag: 'nameplate', caption: 'Fuzz photo', findingId: finding.id })));
   const loan = await ok(call('admin', 'POST', '/api/loans', { kitId: kit.id, start: day(60), end: day(62), purpose: 'Fuzz loan', installation: 'BNP' }));
   s = {
-    fuzzer, buildingId: building.id, meters, station, targetUserId: target.id,
+    fuzzer, buildingId: building.id, meters, station, targetUserId: target.id, baselineMeterId,
     kitId: kit.id, instrumentId: instrument.id, loanId: loan.id, walkthroughId: walkthrough.id, findingId: finding.id, measureId: measure.id, photoId: photo.id,
   };
 }, 120_000);
@@ -319,6 +323,8 @@ interface JsonRouteSpec {
 
 const passes = (schema: z.ZodType) => (v: unknown) => schema.safeParse(v).success;
 const byId = (id: () => string) => (body: any) => body.items.find((i: { id: string }) => i.id === id());
+/** Every decision and period choice is recorded with its actor; other test files decide on demo baselines too. */
+const decisionsOfFuzzer = (body: any) => body.decisions.filter((d: { actor: string }) => d.actor === s.fuzzer);
 
 const JSON_ROUTES: Record<string, JsonRouteSpec> = {
   'POST /api/users': {
@@ -359,9 +365,9 @@ const JSON_ROUTES: Record<string, JsonRouteSpec> = {
   },
   'POST /api/baseline-periods': {
     path: () => '/api/baseline-periods',
-    valid: () => ({ meterId: s.meters.csv.ids.E, start: '2023-01-01', end: '2024-01-01', note: 'fuzz period' }),
+    valid: () => ({ meterId: s.baselineMeterId, start: '2023-01-01', end: '2024-01-01', note: 'fuzz period' }),
     accepts: passes(baselinePeriodSchema),
-    probes: () => [{ path: `/api/baselines/meter/${s.meters.csv.ids.E}` }],
+    probes: () => [{ path: `/api/baselines/meter/${s.baselineMeterId}`, pick: decisionsOfFuzzer }],
   },
   'POST /api/meters': {
     path: () => '/api/meters',
@@ -419,9 +425,9 @@ const JSON_ROUTES: Record<string, JsonRouteSpec> = {
   },
   'POST /api/baseline-decisions': {
     path: () => '/api/baseline-decisions',
-    valid: () => ({ meterId: s.meters.csv.ids.E, action: 'accept', note: 'fuzz decision' }),
+    valid: () => ({ meterId: s.baselineMeterId, action: 'accept', note: 'fuzz decision' }),
     accepts: passes(baselineDecisionSchema),
-    probes: () => [{ path: `/api/baselines/meter/${s.meters.csv.ids.E}` }],
+    probes: () => [{ path: `/api/baselines/meter/${s.baselineMeterId}`, pick: decisionsOfFuzzer }],
   },
   'POST /api/mappings': {
     path: () => '/api/mappings',
@@ -633,9 +639,12 @@ async function send(method: string, path: string, c: BodyCase): Promise<{ status
 async function snapshot(spec: JsonRouteSpec): Promise<unknown[]> {
   return Promise.all(
     spec.probes().map(async (p) => {
+      // A probe that finds nothing would compare equal whatever happened.
       const r = await call(s.fuzzer, 'GET', p.path);
-      expect(r.status, `probe ${p.path}`).toBeLessThan(500);
-      return { status: r.status, body: p.pick && r.status === 200 ? p.pick(r.body) : r.body };
+      expect(r.status, `probe ${p.path}`).toBe(200);
+      const body = p.pick ? p.pick(r.body) : r.body;
+      expect(body, `probe ${p.path}`).toBeDefined();
+      return body;
     }),
   );
 }
