@@ -8,9 +8,10 @@
  *
  * To add a route that reads a JSON body: add an entry to JSON_ROUTES keyed `METHOD /api/path`
  * as the file declares it (`[param]` kept), with the concrete path, a body the route accepts
- * (never sent; mutated into bad ones), the route's schema as `accepts`, and GET probes of what the
- * route would change. The route list comes from the files under src/pages/api, so a new JSON
- * route without an entry fails the first test here; an entry whose file is absent is skipped.
+ * (never sent; mutated into bad ones), the route's schema as `accepts`, and GET probes (each must
+ * answer 200) of what the route would change. The route list comes from the files under
+ * src/pages/api, so a new JSON route without an entry fails the first test here; an entry whose
+ * file is absent is skipped. Each route must refuse some bodies with 400 (they reached validation).
  */
 import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -666,15 +667,21 @@ describe('JSON bodies', () => {
     (present.includes(route) ? it.concurrent : it.skip)(`${route}: ${RUNS} malformed bodies → 4xx with an error, nothing written`, async () => {
       const before = await snapshot(spec);
       const since = await lastActivityId();
+      const statuses: Record<number, number> = {};
       await fc.assert(
         fc.asyncProperty(bodyCases(spec.valid()).filter((c) => isMalformed(c, spec.accepts)), async (c) => {
           const r = await send(method, spec.path(), c);
           expect(r.status, `${pattern} ${c.contentType} ${c.text.slice(0, 200)} → ${JSON.stringify(r.body).slice(0, 300)}`).toBeGreaterThanOrEqual(400);
           expect(r.status).toBeLessThan(500);
           expectErrorShape(r);
+          statuses[r.status] = (statuses[r.status] ?? 0) + 1;
         }),
         { numRuns: RUNS },
       );
+      console.log(`[fuzz] ${route}: ${JSON.stringify(statuses)}`);
+      // Bodies reached validation (a route that refused them all for another reason, say a 403 or
+      // a 404 for its path, would prove nothing about its body).
+      expect(statuses[400] ?? 0).toBeGreaterThan(0);
       expect(await snapshot(spec)).toEqual(before);
       expect(await activityOfFuzzerSince(since)).toEqual([]);
       // The server still answers normally after the batch.
