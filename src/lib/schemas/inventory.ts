@@ -38,6 +38,14 @@ export type InstallationInput = z.infer<typeof installationInputSchema>;
 export const installationPatchSchema = installationInputSchema.omit({ code: true }).partial();
 export type InstallationPatch = z.infer<typeof installationPatchSchema>;
 
+/** An installation's energy-intensity target: a reduction from a baseline fiscal year by a target year. */
+export const installationTargetSchema = z.object({
+  baselineFy: z.number().int().min(1990, 'from FY1990').max(2100),
+  reductionPct: z.number().gt(0, 'must be above 0 %').max(100, 'at most 100 %'),
+  targetFy: z.number().int().min(1991).max(2100),
+});
+export type InstallationTarget = z.infer<typeof installationTargetSchema>;
+
 const thisYear = new Date().getUTCFullYear();
 
 const buildingFields = {

@@ -1,4 +1,5 @@
 import { acceptanceThresholdsSchema, DEFAULT_ACCEPTANCE } from '../../../lib/baseline/acceptance';
+import { acceptanceSettingSchema } from '../../../lib/schemas/baselines';
 import { requirePermission } from '../../../server/authz';
 import { runRefit } from '../../../server/baselines/run';
 import { endpoint, json, readJson } from '../../../server/http';
@@ -15,7 +16,7 @@ export const GET = endpoint(async (ctx) => {
 /** Changes them and re-judges every baseline (a refit runs). */
 export const PUT = endpoint(async (ctx) => {
   const actor = requirePermission(ctx.locals, 'baselines:review');
-  const value = await readJson(ctx, acceptanceThresholdsSchema.refine((v) => v.maxCvrmse <= 1, { path: ['maxCvrmse'], message: 'at most 1 (100 %)' }));
+  const value = await readJson(ctx, acceptanceSettingSchema);
   await putSetting(actor, KEY, value, ctx.clientAddress);
   void runRefit('all', `criteria changed by ${actor.email}`);
   return json(value);
