@@ -4,6 +4,7 @@
  * serve the built app (dist/server/entry.mjs, @astrojs/node standalone) on HOST:PORT.
  * A second process on the same data folder exits at once with a clear message.
  */
+import './production-env';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
