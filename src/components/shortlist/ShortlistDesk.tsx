@@ -7,6 +7,8 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useVirtualizer } from '@tanstack/react-virtual';
 import { useMemo, useRef, useState } from 'react';
 import { PRIORITY_TERMS, PRIORITY_TERM_LABELS, type PriorityTerm } from '../../lib/benchmark/priority-weights';
+import type { PriorityBreakdown } from '../../lib/benchmark/priority-breakdown';
+import type { ShortlistItem } from '../../lib/benchmark/shortlist-item';
 import { COMMODITIES, COMMODITY_LABELS, USE_TYPES, USE_TYPE_LABELS, type UseType } from '../../lib/domain';
 import { formatDate, formatMoney, formatNumber } from '../../lib/format';
 import { api, ApiError } from '../ui/api';
@@ -14,29 +16,8 @@ import { QueryProvider } from '../ui/query';
 import { ShortlistChart } from './ShortlistChart';
 
 type Weights = Record<PriorityTerm, number>;
-interface Term { term: PriorityTerm; points: number; scaled: number; raw: number | null }
-interface Item {
-  buildingId: string;
-  buildingNumber: string;
-  name: string;
-  installationCode: string;
-  useType: string;
-  areaFt2: number;
-  score: number;
-  rank: number;
-  euiNormalized: number | null;
-  euiBasis: 'normalized' | 'actual' | 'none';
-  normalizedProvisional: boolean;
-  siteEui: number | null;
-  wui: number | null;
-  peerMedian: number;
-  peerActivity: string;
-  excessKbtu: number;
-  excessCost: number | null;
-  lastEvaluatedOn: string | null;
-  flag: { id: string; reason: string } | null;
-  breakdown: { terms: Term[]; explanation: string[] } | null;
-}
+type Item = ShortlistItem;
+type Term = PriorityBreakdown['terms'][number];
 interface Answer { items: Item[]; total: number; weights: Weights; asOf: string }
 
 type SortKey = 'rank' | 'euiNormalized' | 'excessKbtu' | 'excessCost' | 'wui' | 'areaFt2' | 'lastEvaluatedOn';

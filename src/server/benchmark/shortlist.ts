@@ -5,38 +5,16 @@
  */
 import { sql } from 'drizzle-orm';
 import { scorePriority, type PriorityCandidate, type PriorityScores } from '../../lib/benchmark/priority';
-import { priorityBreakdown, type PriorityBreakdown } from '../../lib/benchmark/priority-breakdown';
+import { priorityBreakdown } from '../../lib/benchmark/priority-breakdown';
 import { DEFAULT_PRIORITY_WEIGHTS, priorityWeightsSchema, type PriorityWeights } from '../../lib/benchmark/priority-weights';
 import type { UseType } from '../../lib/domain';
+import type { ShortlistItem } from '../../lib/benchmark/shortlist-item';
 import { getDb, queryRows } from '../../db/client';
 import { rankingWeights, region } from '../../db/schema';
 import { logActivity } from '../activity';
 import { scopeToInstallations, type Actor } from '../authz';
 
-export interface ShortlistItem {
-  buildingId: string;
-  buildingNumber: string;
-  name: string;
-  installationCode: string;
-  useType: string;
-  areaFt2: number;
-  score: number;
-  rank: number;
-  euiNormalized: number | null;
-  /** What the excess was measured on: the weather-normalized EUI, or the actual one when there is none. */
-  euiBasis: 'normalized' | 'actual' | 'none';
-  normalizedProvisional: boolean;
-  siteEui: number | null;
-  wui: number | null;
-  peerMedian: number;
-  peerActivity: string;
-  excessKbtu: number;
-  excessCost: number | null;
-  lastEvaluatedOn: string | null;
-  flag: { id: string; reason: string } | null;
-  commodities: string[];
-  breakdown: PriorityBreakdown | null;
-}
+export type { ShortlistItem };
 
 interface Row {
   building_id: string;
