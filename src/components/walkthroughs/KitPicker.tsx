@@ -1,25 +1,15 @@
 /**
  * Choosing a loaner kit for a walkthrough: the kits with their availability for the dates and how
  * many of the suggested instruments each holds, through the kit library's API
- * (`GET /api/kits?from&to`); the reservation is `POST /api/loans`. Where the kit library is not
- * there (404) the planner says so and goes on without a kit.
+ * (`GET /api/kits?from&to`); the reservation is `POST /api/loans`.
  */
 import { useQuery } from '@tanstack/react-query';
 import { INSTRUMENT_LABELS, type InstrumentType } from '../../lib/field/instruments';
 import { formatDate } from '../../lib/format';
+import type { KitSummary } from '../../lib/kits/api-types';
 import { api, ApiError } from '../ui/api';
 
-export interface Kit {
-  id: string;
-  code: string;
-  name: string;
-  description: string;
-  homeLocation: string;
-  active: boolean;
-  instrumentTypes: string[];
-  available: boolean | null;
-  calibrationOk: boolean;
-}
+type Kit = Pick<KitSummary, 'id' | 'code' | 'name' | 'homeLocation' | 'active' | 'instrumentTypes' | 'available' | 'calibrationOk'>;
 
 export interface KitChoice {
   kitId: string | null;
@@ -27,15 +17,12 @@ export interface KitChoice {
   end: string;
 }
 
-export const NO_KIT_LIBRARY = 'The kit library is not available on this server yet: plan the walkthrough now and reserve a kit later from the Kit library.';
-
 /** Reserves the kit for the walkthrough. @returns null on success, else the reason in words. */
 export async function reserveKit(walkthroughId: string, title: string, c: KitChoice): Promise<{ ok: true; loan: { id: string; status: string } } | { ok: false; message: string }> {
   try {
     const loan = await api<{ id: string; status: string }>('/api/loans', { method: 'POST', body: { kitId: c.kitId, start: c.start, end: c.end, purpose: `Walkthrough: ${title}`, walkthroughId } });
     return { ok: true, loan };
   } catch (e) {
-    if (e instanceof ApiError && e.status === 404) return { ok: false, message: NO_KIT_LIBRARY };
     if (e instanceof ApiError && e.status === 409) return { ok: false, message: `That kit is already reserved for these dates. ${e.message}` };
     if (e instanceof ApiError && e.status === 422) return { ok: false, message: `That kit cannot go out on these dates: ${e.message}` };
     return { ok: false, message: (e as Error).message };
@@ -49,7 +36,6 @@ export function KitPicker({ value, onChange, suggested }: { value: KitChoice; on
     enabled: ready,
     queryFn: () => api<{ items: Kit[] }>(`/api/kits?${new URLSearchParams({ from: value.start, to: value.end })}`),
   });
-  const missing = kits.error instanceof ApiError && kits.error.status === 404;
   const covers = (k: Kit) => suggested.filter((t) => k.instrumentTypes.includes(t)).length;
   const sorted = [...(kits.data?.items ?? [])].filter((k) => k.active).sort((a, b) => Number(b.available === true) - Number(a.available === true) || covers(b) - covers(a) || a.code.localeCompare(b.code));
   return (
@@ -67,8 +53,7 @@ export function KitPicker({ value, onChange, suggested }: { value: KitChoice; on
       </div>
       {!ready && <p className="field-error">Give both dates, the second on or after the first.</p>}
       {kits.isFetching && <p role="status" className="text-sm">Looking at the kits for {formatDate(value.start)} – {formatDate(value.end)}…</p>}
-      {missing && <p className="notice-warn" role="status">{NO_KIT_LIBRARY}</p>}
-      {kits.isError && !missing && <p className="notice-error" role="alert">The kits could not be read: {(kits.error as Error).message}</p>}
+      {kits.isError && <p className="notice-error" role="alert">The kits could not be read: {(kits.error as Error).message}</p>}
       {kits.data && (
         <div className="space-y-2" role="radiogroup" aria-label="Kits">
           <label className="flex min-h-11 items-center gap-2 text-sm">

@@ -3,7 +3,7 @@
  * photos, the findings and their measures, the calculators, and the plan with the kit. Works at a
  * phone's width; everything is reachable by keyboard.
  */
-import { QueryClient, QueryClientProvider, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useRef, useState, type KeyboardEvent } from 'react';
 import type { InstrumentSuggestions } from '../../lib/field/suggest-instruments';
 import type { WalkthroughForm, WalkthroughStatus } from '../../lib/field/walkthrough-form';
@@ -280,14 +280,7 @@ function Workspace({ initial, perms }: { initial: Walkthrough; perms: Permission
 }
 
 export default function WorkspaceIsland(props: { initial: Walkthrough; perms: Permissions }) {
-  // On the server the page's shared client lives as long as the process, so its cache would hold an
-  // earlier request's walkthrough over `initialData`: render there with a client of its own.
-  const [server] = useState(() => (typeof window === 'undefined' ? new QueryClient() : null));
-  return server ? (
-    <QueryClientProvider client={server}>
-      <Workspace {...props} />
-    </QueryClientProvider>
-  ) : (
+  return (
     <QueryProvider>
       <Workspace {...props} />
     </QueryProvider>
