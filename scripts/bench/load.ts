@@ -8,12 +8,12 @@
  * BENCH_USERS (50), BENCH_SECONDS (60), BENCH_KEEP_DIR (reuse a loaded demo folder) and
  * BENCH_CPU_PROFILE (a folder for the server's CPU profile) adjust it.
  */
-import { spawn, spawnSync } from 'node:child_process';
+import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { createServer } from 'node:net';
 import { Agent, request } from 'node:http';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
+import { startBenchServer } from './lib/server';
 
 const ROOT = resolve(import.meta.dirname, '..', '..');
 const USERS = Number(process.env.BENCH_USERS ?? 50);
@@ -26,29 +26,8 @@ delete env.DATABASE_URL;
 
 if (spawnSync('npm', ['run', 'build'], { cwd: ROOT, stdio: 'ignore', env }).status !== 0) throw new Error('build failed');
 
-const port: number = await new Promise((res) => {
-  const s = createServer();
-  s.listen(0, '127.0.0.1', () => {
-    const a = s.address();
-    s.close(() => res(typeof a === 'object' && a ? a.port : 0));
-  });
-});
-const base = `http://localhost:${port}`;
 const t0 = Date.now();
-// Sign-in throttling per address stays on; its limit is raised because every simulated person
-// signs in from the same loopback address within a second.
-const profile = process.env.BENCH_CPU_PROFILE ? ['--cpu-prof', '--cpu-prof-dir', process.env.BENCH_CPU_PROFILE] : [];
-const server = spawn(process.execPath, [...profile, '--import', 'tsx', 'src/server/main.ts'], { cwd: ROOT, env: { ...env, HOST: 'localhost', PORT: String(port), PLUMBLINE_SIGNIN_RATE: '1000' }, stdio: ['ignore', 'ignore', 'inherit'] });
-let up = false;
-for (let i = 0; i < 1200 && !up; i++) {
-  try {
-    up = (await fetch(`${base}/api/health`)).ok;
-  } catch {
-    /* starting */
-  }
-  if (!up) await new Promise((r) => setTimeout(r, 250));
-}
-if (!up) throw new Error('the server did not start');
+const { base, process: server } = await startBenchServer(ROOT, env, ['ignore', 'ignore', 'inherit']);
 console.log(`server ready with the demo region in ${((Date.now() - t0) / 1000).toFixed(1)} s`);
 
 const agent = new Agent({ keepAlive: true, maxSockets: USERS * 2 });

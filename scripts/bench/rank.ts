@@ -4,12 +4,12 @@
  * requests over loopback. Ends with one JSON line {"buildings","p95Ms","p99Ms","rssMb",…}.
  * Target: p95 ≤ 50 ms.
  */
-import { spawn, spawnSync } from 'node:child_process';
+import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
-import { createServer } from 'node:net';
 import { Agent, request } from 'node:http';
+import { startBenchServer } from './lib/server';
 
 const ROOT = resolve(import.meta.dirname, '..', '..');
 const BUILDINGS = Number(process.env.BENCH_BUILDINGS ?? 10_000);
@@ -35,24 +35,7 @@ if (reuse) {
 }
 console.log(reuse ? 'database: reused from BENCH_KEEP_DIR' : `database: ${made.buildings} buildings, ${made.bills.toLocaleString('en-US')} bills in ${((Date.now() - t0) / 1000).toFixed(1)} s (fits ${made.fitSeconds} s, metrics ${made.metricsSeconds} s)`);
 
-const port: number = await new Promise((res) => {
-  const s = createServer();
-  s.listen(0, '127.0.0.1', () => {
-    const a = s.address();
-    s.close(() => res(typeof a === 'object' && a ? a.port : 0));
-  });
-});
-const base = `http://localhost:${port}`;
-const profile = process.env.BENCH_CPU_PROFILE ? ['--cpu-prof', '--cpu-prof-dir', process.env.BENCH_CPU_PROFILE] : [];
-const server = spawn(process.execPath, [...profile, '--import', 'tsx', 'src/server/main.ts'], { cwd: ROOT, env: { ...env, HOST: 'localhost', PORT: String(port), PLUMBLINE_SIGNIN_RATE: '1000' }, stdio: 'ignore' });
-for (let i = 0; i < 200; i++) {
-  try {
-    if ((await fetch(`${base}/api/health`)).ok) break;
-  } catch {
-    /* starting */
-  }
-  await new Promise((r) => setTimeout(r, 250));
-}
+const { base, process: server } = await startBenchServer(ROOT, env);
 const signIn = await fetch(`${base}/api/auth/sign-in/email`, { method: 'POST', headers: { 'content-type': 'application/json', origin: base }, body: JSON.stringify({ email: 'manager@bench.plumbline.test', password: 'bench-password-2026' }) });
 const cookie = signIn.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
 
