@@ -3,25 +3,12 @@ import { Bar, Circle, LinePath } from '@visx/shape';
 import { scaleLinear, scaleTime } from '@visx/scale';
 import { extent } from 'd3-array';
 import { CHART_MARGIN, ChartFrame } from '../ui/ChartFrame';
+import type { PeriodRow } from '../../lib/baseline/engine';
+import type { BaselineModel } from '../../lib/baseline/model';
 
-export interface PeriodRow {
-  start: string;
-  end: string;
-  days: number;
-  usePerDay: number;
-  meanTempF: number;
-  predictedUsePerDay: number;
-}
-
-export interface ModelLine {
-  shape: string;
-  intercept: number;
-  heatingSlope: number | null;
-  coolingSlope: number | null;
-  slope: number | null;
-  heatingBalanceF: number | null;
-  coolingBalanceF: number | null;
-}
+export type { PeriodRow };
+/** A fitted model as the API sends it (the shape as plain text). */
+export type ModelLine = Omit<BaselineModel, 'shape'> & { shape: string };
 
 /**
  * Use per day of a period whose every day has mean temperature T: the model's curve. (Fitted on
